@@ -1,0 +1,12 @@
+import { AppShell } from "@/components/shell/app-shell";
+import { requirePageUser } from "@/lib/server/auth";
+import { signOutAction } from "./actions";
+
+export default async function SignedInLayout({ children }: { children: React.ReactNode }) {
+  const user = await requirePageUser();
+  return (
+    <AppShell user={user} signOut={signOutAction}>
+      {children}
+    </AppShell>
+  );
+}

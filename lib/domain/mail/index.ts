@@ -1,0 +1,1 @@
+export { OUTBOX_MAX_ATTEMPTS, nextAttemptDelaySeconds } from "./backoff";

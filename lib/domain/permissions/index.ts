@@ -1,0 +1,3 @@
+export { ROLES, ROLE_LABELS, ACTIONS } from "./types";
+export type { Role, Action } from "./types";
+export { can, isRole, isAction } from "./can";

@@ -1,0 +1,43 @@
+import "server-only";
+import { revalidatePath } from "next/cache";
+import type { z } from "zod";
+import type { Action } from "@/lib/domain/permissions";
+import type { ActionState } from "@/lib/validation/action-state";
+import { zodFieldErrors } from "@/lib/validation/field-errors";
+import { requireActionUser } from "./auth";
+import { AppError, ValidationError, toAppError } from "./errors";
+import type { SessionUser } from "./session";
+
+/**
+ * The five steps of every server action: session and role → parse with the shared schema → do the
+ * work → revalidate → answer with an ActionState. Errors never escape as exceptions.
+ */
+export async function runAction<S extends z.ZodType>(
+  options: { action: Action; schema: S; revalidate?: string[]; success: string },
+  input: unknown,
+  work: (data: z.output<S>, user: SessionUser) => Promise<void>,
+): Promise<ActionState> {
+  try {
+    const user = await requireActionUser(options.action);
+    const parsed = options.schema.safeParse(input);
+    if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
+    await work(parsed.data, user);
+    for (const path of options.revalidate ?? []) revalidatePath(path);
+    return { status: "success", message: options.success };
+  } catch (error) {
+    const appError = error instanceof AppError ? error : toAppError(error);
+    if (appError.fields) return { status: "invalid", fieldErrors: appError.fields, message: appError.message };
+    return { status: "error", message: appError.message };
+  }
+}
+
+/** Reads a FormData into a plain object; repeated names become arrays. */
+export function formToObject(form: FormData, arrays: string[] = []): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const name of arrays) out[name] = form.getAll(name).map(String);
+  for (const [key, value] of form.entries()) {
+    if (arrays.includes(key) || key.startsWith("$ACTION")) continue;
+    out[key] = typeof value === "string" ? value : value.name;
+  }
+  return out;
+}

@@ -1,0 +1,38 @@
+import "server-only";
+import { Sequelize } from "sequelize";
+import { getEnv, type Env } from "@/lib/env";
+import { initModels } from "@/models";
+
+type Holder = { __greaseledgerSequelize?: Sequelize; __greaseledgerStatements?: { count: number } };
+const holder = globalThis as Holder;
+
+/** Counts SQL statements, so benchmarks and tests can see how many a request made. */
+export const statementCounter = (holder.__greaseledgerStatements ??= { count: 0 });
+
+/** A Sequelize instance for the given settings, with every model registered. */
+export function createSequelize(env: Env, options: { poolMax?: number } = {}): Sequelize {
+  const sequelize = new Sequelize({
+    dialect: "mariadb",
+    host: env.DATABASE_HOST,
+    port: env.DATABASE_PORT,
+    database: env.DATABASE_NAME,
+    username: env.DATABASE_USER,
+    password: env.DATABASE_PASSWORD,
+    timezone: "+00:00",
+    logging: () => {
+      statementCounter.count += 1;
+    },
+    benchmark: false,
+    pool: { max: options.poolMax ?? env.DATABASE_POOL_MAX, min: 0, acquire: 4000, idle: 10_000, evict: 5000 },
+    dialectOptions: { connectTimeout: 3000, socketTimeout: 30_000 },
+    define: { underscored: true },
+  });
+  initModels(sequelize);
+  return sequelize;
+}
+
+/** The process-wide instance (kept on globalThis so dev reloads do not open new pools). */
+export function getSequelize(): Sequelize {
+  holder.__greaseledgerSequelize ??= createSequelize(getEnv());
+  return holder.__greaseledgerSequelize;
+}

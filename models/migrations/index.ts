@@ -1,0 +1,8 @@
+import * as m0001 from "./0001-foundation";
+
+/**
+ * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
+ * `up` and `down`, and append it here. Listing them statically keeps the runner independent of how
+ * TypeScript is loaded (tsx, vitest, the Next build).
+ */
+export const MIGRATIONS = [{ name: "0001-foundation.ts", ...m0001 }];

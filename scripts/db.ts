@@ -1,0 +1,42 @@
+// Database commands: `migrate`, `migrate:down`, `seed` (`--if-empty` seeds only an empty database), `status`.
+// Run through tsx with the react-server condition (see package.json), with the DATABASE_* variables set.
+import { getEnv } from "@/lib/env";
+import { createSequelize } from "@/lib/server/db";
+import { createMigrator } from "@/models/migrator";
+import { databaseIsEmpty, seedDemo } from "@/seed/demo";
+
+const [command = "migrate", ...flags] = process.argv.slice(2);
+const quietLogger = { info: () => {}, warn: console.warn, error: console.error };
+
+async function main() {
+  const sequelize = createSequelize(getEnv(), { poolMax: 2 });
+  try {
+    const migrator = createMigrator(sequelize, quietLogger);
+    if (command === "migrate") {
+      const applied = await migrator.up();
+      console.log(applied.length ? `applied ${applied.length} migration(s): ${applied.map((m) => m.name).join(", ")}` : "schema is up to date");
+    } else if (command === "migrate:down") {
+      const reverted = await migrator.down();
+      console.log(`reverted ${reverted.map((m) => m.name).join(", ") || "nothing"}`);
+    } else if (command === "status") {
+      const pending = await migrator.pending();
+      console.log(pending.length ? `pending: ${pending.map((m) => m.name).join(", ")}` : "no pending migrations");
+    } else if (command === "seed") {
+      if (flags.includes("--if-empty") && !(await databaseIsEmpty(sequelize))) {
+        console.log("database already has data; demo seed skipped");
+      } else {
+        await seedDemo(sequelize);
+        console.log("demo data written");
+      }
+    } else {
+      throw new Error(`unknown command ${command}`);
+    }
+  } finally {
+    await sequelize.close();
+  }
+}
+
+main().catch((error) => {
+  console.error(error instanceof Error ? error.message : error);
+  process.exit(1);
+});

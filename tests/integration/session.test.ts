@@ -1,0 +1,150 @@
+import { createHash } from "node:crypto";
+import { afterAll, describe, expect, it } from "vitest";
+import { Client, createUser, rootQuery, uniqueEmail } from "./helpers";
+
+const sha256 = (s: string) => createHash("sha256").update(s).digest("hex");
+
+afterAll(async () => {
+  await rootQuery("DELETE FROM sign_in_throttle");
+});
+
+describe("POST /api/v1/session", () => {
+  it("signs in with the demo lead and answers GET /api/v1/me", async () => {
+    const client = new Client();
+    const response = await client.signIn("lead@example.com");
+    expect(response.status).toBe(200);
+    expect(response.body.user).toMatchObject({ email: "lead@example.com", role: "lead" });
+    expect(Object.keys(response.body.user).sort()).toEqual(["email", "id", "name", "role"]);
+    const me = await client.request("GET", "/api/v1/me");
+    expect(me.status).toBe(200);
+    expect(me.body.user.email).toBe("lead@example.com");
+  });
+
+  it("gives the same 401 body for a wrong password and an unknown user", async () => {
+    const wrong = await new Client().signIn("clerk@example.com", "not-the-password");
+    const unknown = await new Client().signIn(uniqueEmail("nobody"), "not-the-password");
+    expect(wrong.status).toBe(401);
+    expect(unknown.status).toBe(401);
+    expect(wrong.text).toBe(unknown.text);
+    expect(wrong.body.error.code).toBe("invalid_credentials");
+  });
+
+  it("names the bad field on malformed input and never answers 500", async () => {
+    const response = await new Client().request("POST", "/api/v1/session", { json: { email: "x", password: 5 } });
+    expect(response.status).toBe(400);
+    expect(Object.keys(response.body.error.fields).sort()).toEqual(["email", "password"]);
+    const broken = await new Client().request("POST", "/api/v1/session", { body: "{not json", headers: { "content-type": "application/json" } });
+    expect(broken.status).toBe(400);
+  });
+
+  it("sets an HttpOnly, SameSite=Lax cookie and stores only the token's SHA-256", async () => {
+    const client = new Client();
+    const user = await createUser({ email: uniqueEmail("hash"), role: "clerk" });
+    const response = await client.signIn(user.email, user.password);
+    const setCookie = response.headers.get("set-cookie") ?? "";
+    expect(setCookie).toMatch(/HttpOnly/i);
+    expect(setCookie).toMatch(/SameSite=lax/i);
+    expect(setCookie).toMatch(/Path=\//);
+    expect(setCookie).not.toMatch(/Domain=/i);
+    const token = client.cookies.get("gl_session")!;
+    expect(token.length).toBeGreaterThanOrEqual(27); // 160 bits in base64url
+    const rows = await rootQuery<{ id: string }>("SELECT id FROM user_session WHERE user_id = ?", [user.id]);
+    expect(rows).toHaveLength(1);
+    expect(rows[0]!.id).toBe(sha256(token));
+    expect(rows[0]!.id).not.toContain(token);
+  });
+
+  it("DELETE ends the session on the server; replaying the cookie gives 401", async () => {
+    const client = new Client();
+    await client.signIn("tech@example.com");
+    const token = client.cookies.get("gl_session")!;
+    expect((await client.request("DELETE", "/api/v1/session")).status).toBe(204);
+    const replay = new Client();
+    replay.cookies.set("gl_session", token);
+    expect((await replay.request("GET", "/api/v1/me")).status).toBe(401);
+    expect(await rootQuery("SELECT id FROM user_session WHERE id = ?", [sha256(token)])).toHaveLength(0);
+  });
+
+  it("a new sign-in gives a new token; a planted cookie is not adopted", async () => {
+    const client = new Client();
+    client.cookies.set("gl_session", "planted-value-chosen-by-attacker");
+    await client.signIn("auditor@example.com");
+    expect(client.cookies.get("gl_session")).not.toBe("planted-value-chosen-by-attacker");
+    const planted = new Client();
+    planted.cookies.set("gl_session", "planted-value-chosen-by-attacker");
+    expect((await planted.request("GET", "/api/v1/me")).status).toBe(401);
+  });
+});
+
+describe("sessions end on the server", () => {
+  it("a disabled user's session gives 401 at once", async () => {
+    const user = await createUser({ email: uniqueEmail("disabled"), role: "technician" });
+    const client = new Client();
+    expect((await client.signIn(user.email, user.password)).status).toBe(200);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(200);
+    await rootQuery("UPDATE app_user SET status = 'disabled' WHERE id = ?", [user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+    expect(await rootQuery("SELECT id FROM user_session WHERE user_id = ?", [user.id])).toHaveLength(0);
+  });
+
+  it("an idle session expires (technician: 30 minutes without a request)", async () => {
+    const user = await createUser({ email: uniqueEmail("idle"), role: "technician" });
+    const client = new Client();
+    await client.signIn(user.email, user.password);
+    await rootQuery("UPDATE user_session SET last_seen_at = ? WHERE user_id = ?", [new Date(Date.now() - 29 * 60_000), user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(200);
+    await rootQuery("UPDATE user_session SET last_seen_at = ? WHERE user_id = ?", [new Date(Date.now() - 31 * 60_000), user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+  });
+
+  it("a session past its absolute limit expires although it is in use (lead: 8 hours)", async () => {
+    const user = await createUser({ email: uniqueEmail("absolute"), role: "lead" });
+    const client = new Client();
+    await client.signIn(user.email, user.password);
+    await rootQuery("UPDATE user_session SET created_at = ?, last_seen_at = ? WHERE user_id = ?", [
+      new Date(Date.now() - 8 * 3_600_000 - 1000),
+      new Date(),
+      user.id,
+    ]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+  });
+
+  it("no session gives 401 with the API error body", async () => {
+    const response = await new Client().request("GET", "/api/v1/me");
+    expect(response.status).toBe(401);
+    expect(response.body.error.code).toBe("unauthenticated");
+  });
+});
+
+describe("cross-origin writes to route handlers are refused", () => {
+  const body = JSON.stringify({ email: "lead@example.com", password: "demo-grease-2026" });
+  const own = new URL(process.env.APP_URL!).origin;
+  it.each([
+    ["no Origin header", { "content-type": "application/json" }],
+    ["a foreign Origin", { "content-type": "application/json", origin: "https://evil.example" }],
+    ["Sec-Fetch-Site: cross-site", { "content-type": "application/json", origin: own, "sec-fetch-site": "cross-site" }],
+  ])("%s → 403 and no session", async (_label, headers) => {
+    const response = await fetch(new URL("/api/v1/session", own), { method: "POST", headers, body });
+    expect(response.status).toBe(403);
+    expect(response.headers.get("set-cookie")).toBeNull();
+    expect(((await response.json()) as { error: { code: string } }).error.code).toBe("cross_origin");
+  });
+
+  it("a same-origin text/plain form post of JSON gets 415, not a session", async () => {
+    const response = await new Client().request("POST", "/api/v1/session", { body, headers: { "content-type": "text/plain" } });
+    expect(response.status).toBe(415);
+    expect(response.headers.get("set-cookie")).toBeNull();
+  });
+});
+
+describe("security headers", () => {
+  it.each(["/sign-in", "/api/v1/me", "/api/v1/health", "/no-such-page"])("are on %s", async (pathname) => {
+    const response = await fetch(new URL(pathname, process.env.APP_URL), { redirect: "manual" });
+    const csp = response.headers.get("content-security-policy") ?? "";
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("object-src 'none'");
+    expect(csp).toContain("base-uri 'none'");
+    expect(response.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(response.headers.get("referrer-policy")).toBe("same-origin");
+  });
+});
