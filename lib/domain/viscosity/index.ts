@@ -1,0 +1,2 @@
+export type { IsoVgGrade } from "./iso-vg";
+export { ISO_VG_GRADES, isoViscosityGrade, viscosityMatchesIsoVg } from "./iso-vg";
