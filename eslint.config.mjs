@@ -24,7 +24,7 @@ const config = [
         {
           patterns: [
             {
-              group: ["@/*", "!@/lib/domain", "!@/lib/domain/*", "next", "next/*", "react", "react-dom", "sequelize", "mariadb", "mysql2", "node:*", "fs", "path"],
+              regex: "^(@/(?!lib/domain(/|$))|next(/|$)|react(-dom)?$|sequelize$|mariadb$|mysql2|node:|fs$|path$)",
               message: "lib/domain is pure: it imports nothing of ours but itself, and no framework, database or I/O.",
             },
           ],

@@ -1,7 +1,6 @@
 // Database commands: `migrate`, `migrate:down`, `seed` (`--if-empty` seeds only an empty database), `status`.
 // Run through tsx with the react-server condition (see package.json), with the DATABASE_* variables set.
-import { getEnv } from "@/lib/env";
-import { createSequelize } from "@/lib/server/db";
+import { getSequelize } from "@/lib/server/db";
 import { createMigrator } from "@/models/migrator";
 import { databaseIsEmpty, seedDemo } from "@/seed/demo";
 
@@ -9,7 +8,8 @@ const [command = "migrate", ...flags] = process.argv.slice(2);
 const quietLogger = { info: () => {}, warn: console.warn, error: console.error };
 
 async function main() {
-  const sequelize = createSequelize(getEnv(), { poolMax: 2 });
+  // The process-wide instance: the seed writes through the same query functions as the app.
+  const sequelize = getSequelize();
   try {
     const migrator = createMigrator(sequelize, quietLogger);
     if (command === "migrate") {

@@ -34,7 +34,11 @@ async function vitest(project, env) {
   );
   const report = readJson(output);
   let passed = report?.numPassedTests ?? 0;
-  let failed = (report?.numFailedTests ?? 0) + (report?.numFailedTestSuites ?? 0);
+  // A file that failed to load has no failed test in it; count it once.
+  const brokenFiles = (report?.testResults ?? []).filter(
+    (file) => file.status === "failed" && !(file.assertionResults ?? []).some((t) => t.status === "failed"),
+  ).length;
+  let failed = (report?.numFailedTests ?? 0) + brokenFiles;
   if (code !== 0 && failed === 0) failed = 1; // the runner itself failed (a file did not load, no report)
   if (!report) passed = 0;
   return { name: `${project} (vitest)`, passed, failed };
@@ -96,6 +100,7 @@ try {
     SMTP_PORT: String(smtpPort),
     MAIL_INBOX_URL: `http://127.0.0.1:${inboxPort}`,
     OUTBOX_POLL_MS: "300",
+    UPLOAD_DIR: path.join(tmp, "uploads"),
   };
   const app = await startApp({ port: appPort, env: appEnv, silent: !process.env.GL_TEST_VERBOSE });
   stoppers.push(app.stop);

@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { hash } from "@node-rs/argon2";
 import { QueryTypes, type Sequelize } from "sequelize";
 import type { Role } from "@/lib/domain/permissions";
+import { seedCatalogue } from "./catalogue";
 
 /** The one password of every demo sign-in (listed in the README). */
 export const DEMO_PASSWORD = "demo-grease-2026";
@@ -37,8 +38,10 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
       );
       siteIds.set(site.code, Number(id));
     }
+    let leadId: string | null = null;
     for (const user of DEMO_USERS) {
       const id = randomUUID();
+      if (user.role === "lead") leadId = id;
       await sequelize.query(
         `INSERT INTO app_user (id, email, name, role, status, password_hash, unit_system, created_at, updated_at)
          VALUES (?, ?, ?, ?, 'active', ?, 'metric', ?, ?)`,
@@ -51,5 +54,6 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
         });
       }
     }
+    await seedCatalogue(sequelize, transaction, now, leadId);
   });
 }

@@ -1,6 +1,7 @@
 import "server-only";
 import { Sequelize } from "sequelize";
 import { getEnv, type Env } from "@/lib/env";
+import * as models from "@/models";
 import { initModels } from "@/models";
 
 type Holder = { __greaseledgerSequelize?: Sequelize; __greaseledgerStatements?: { count: number } };
@@ -31,8 +32,19 @@ export function createSequelize(env: Env, options: { poolMax?: number } = {}): S
   return sequelize;
 }
 
-/** The process-wide instance (kept on globalThis so dev reloads do not open new pools). */
+/**
+ * The process-wide instance (kept on globalThis so dev reloads do not open new pools). The models are
+ * registered on every call: a production build may hold more than one copy of the models module (one
+ * per route bundle), and each copy must be bound to the shared instance before use.
+ */
 export function getSequelize(): Sequelize {
   holder.__greaseledgerSequelize ??= createSequelize(getEnv());
+  initModels(holder.__greaseledgerSequelize);
   return holder.__greaseledgerSequelize;
+}
+
+/** The Sequelize models, bound to the process-wide instance. Use this instead of importing models directly. */
+export function boundModels(): typeof models {
+  getSequelize();
+  return models;
 }

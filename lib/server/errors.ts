@@ -43,8 +43,13 @@ export class ConflictError extends AppError {
   }
 }
 export class UnsupportedMediaTypeError extends AppError {
-  constructor(message = "Send the body as application/json.") {
-    super(415, "unsupported_media_type", message);
+  constructor(message = "Send the body as application/json.", fields?: FieldErrors) {
+    super(415, "unsupported_media_type", message, fields);
+  }
+}
+export class PayloadTooLargeError extends AppError {
+  constructor(limitBytes: number) {
+    super(413, "payload_too_large", `The file is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB.`);
   }
 }
 export class TooManyRequestsError extends AppError {

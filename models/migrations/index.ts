@@ -1,8 +1,12 @@
 import * as m0001 from "./0001-foundation";
+import * as m0002 from "./0002-catalogue";
 
 /**
  * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
  * `up` and `down`, and append it here. Listing them statically keeps the runner independent of how
  * TypeScript is loaded (tsx, vitest, the Next build).
  */
-export const MIGRATIONS = [{ name: "0001-foundation.ts", ...m0001 }];
+export const MIGRATIONS = [
+  { name: "0001-foundation.ts", ...m0001 },
+  { name: "0002-catalogue.ts", ...m0002 },
+];

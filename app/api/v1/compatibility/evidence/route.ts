@@ -1,0 +1,40 @@
+import { apiRoute } from "@/lib/server/api";
+import { PayloadTooLargeError, UnsupportedMediaTypeError, ValidationError } from "@/lib/server/errors";
+import { createEvidence, listEvidence } from "@/lib/server/queries/compatibility";
+import { PDF_LIMIT_BYTES, discardStoredFile, storePdf } from "@/lib/server/uploads";
+import { evidenceSchema } from "@/lib/validation/compatibility";
+import { zodFieldErrors } from "@/lib/validation/field-errors";
+
+export const dynamic = "force-dynamic";
+
+export const GET = apiRoute({ action: "catalogue.read" }, async () => Response.json({ items: await listEvidence() }));
+
+/**
+ * Records evidence about a pair: multipart form with `payload` (JSON, see evidenceSchema) and an optional
+ * `file` (the report or letter, PDF checked by content). Nothing is stored unless everything is valid.
+ */
+export const POST = apiRoute({ action: "compatibility.rules.manage" }, async ({ request, user }) => {
+  if (!/^multipart\/form-data/i.test(request.headers.get("content-type") ?? "")) {
+    throw new UnsupportedMediaTypeError("Send the evidence as multipart/form-data.");
+  }
+  if (Number(request.headers.get("content-length") ?? "0") > PDF_LIMIT_BYTES) throw new PayloadTooLargeError(PDF_LIMIT_BYTES);
+  const form = await request.formData().catch(() => {
+    throw new ValidationError({ payload: ["The form could not be read."] });
+  });
+  let raw: unknown;
+  try {
+    raw = JSON.parse(String(form.get("payload") ?? ""));
+  } catch {
+    throw new ValidationError({ payload: ["payload must be JSON."] });
+  }
+  const parsed = evidenceSchema.safeParse(raw);
+  if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
+  const file = form.get("file");
+  const documentId = file instanceof File && file.size > 0 ? await storePdf(file, "file", user.id) : null;
+  try {
+    return Response.json(await createEvidence(parsed.data, user.id, documentId), { status: 201 });
+  } catch (error) {
+    if (documentId) await discardStoredFile(documentId);
+    throw error;
+  }
+});

@@ -1,0 +1,86 @@
+import "server-only";
+import { createHash, randomUUID } from "node:crypto";
+import { mkdir, readFile, rm, writeFile } from "node:fs/promises";
+import path from "node:path";
+import { fileTypeFromBuffer } from "file-type";
+import type { Transaction } from "sequelize";
+import { getEnv } from "@/lib/env";
+import { StoredDocument } from "@/models";
+import { boundModels } from "./db";
+import { NotFoundError, PayloadTooLargeError, UnsupportedMediaTypeError, ValidationError } from "./errors";
+
+/** Data sheets and delivery notes: PDF only, at most 10 MB. */
+export const PDF_LIMIT_BYTES = 10 * 1024 * 1024;
+
+function uploadDir() {
+  return path.resolve(getEnv().UPLOAD_DIR);
+}
+
+/** Keeps a readable, harmless version of the name a person gave the file (never used as a path). */
+export function safeDisplayName(name: string): string {
+  const base = name.split(/[\\/]/).pop() ?? "document.pdf";
+  const cleaned = base.replace(/[\u0000-\u001f\u007f"<>|:*?]/g, "_").replace(/^\.+/, "").trim();
+  return (cleaned || "document.pdf").slice(0, 200);
+}
+
+/**
+ * Checks an uploaded file by its content (the name and the declared type are not trusted), stores it
+ * under a generated name outside public/, and records it. Throws 413 / 415 / 400 before anything is written.
+ */
+export async function storePdf(file: unknown, field: string, userId: string | null, transaction?: Transaction): Promise<number> {
+  const { StoredDocument } = boundModels();
+  if (!(file instanceof File) || file.size === 0) throw new ValidationError({ [field]: ["Choose a PDF file."] });
+  if (file.size > PDF_LIMIT_BYTES) throw new PayloadTooLargeError(PDF_LIMIT_BYTES);
+  const buffer = Buffer.from(await file.arrayBuffer());
+  const type = await fileTypeFromBuffer(buffer);
+  if (type?.mime !== "application/pdf") {
+    throw new UnsupportedMediaTypeError("Only PDF files are accepted; this file's content is not a PDF.", {
+      [field]: ["The file's content is not a PDF."],
+    });
+  }
+  const storedName = randomUUID();
+  await mkdir(uploadDir(), { recursive: true });
+  const target = path.join(uploadDir(), storedName);
+  await writeFile(target, buffer, { flag: "wx" });
+  try {
+    const doc = await StoredDocument.create(
+      {
+        storedName,
+        originalName: safeDisplayName(file.name),
+        contentType: "application/pdf",
+        sizeBytes: buffer.length,
+        sha256: createHash("sha256").update(buffer).digest("hex"),
+        uploadedBy: userId,
+        uploadedAt: new Date(),
+      },
+      { transaction },
+    );
+    return doc.id;
+  } catch (error) {
+    await rm(target, { force: true });
+    throw error;
+  }
+}
+
+/** Removes a stored file whose database row was rolled back. */
+export async function discardStoredFile(documentId: number) {
+  const { StoredDocument } = boundModels();
+  const doc = await StoredDocument.findByPk(documentId);
+  if (doc) await rm(path.join(uploadDir(), doc.storedName), { force: true });
+}
+
+/** The bytes and the display name of a stored document. */
+export async function readStoredDocument(id: number): Promise<{ name: string; contentType: string; body: Buffer }> {
+  const doc = await StoredDocument.findByPk(id);
+  if (!doc || !/^[0-9a-f-]{36}$/.test(doc.storedName)) throw new NotFoundError("No such document.");
+  const body = await readFile(path.join(uploadDir(), doc.storedName)).catch(() => {
+    throw new NotFoundError("The document's file is missing.");
+  });
+  return { name: doc.originalName, contentType: doc.contentType, body };
+}
+
+/** A Content-Disposition header that downloads the file under its display name (RFC 6266 / 5987). */
+export function attachmentHeader(name: string): string {
+  const ascii = name.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
+  return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(name)}`;
+}
