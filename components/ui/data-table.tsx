@@ -46,6 +46,8 @@ export function DataTable<T>({ data, columns, caption, filterLabel = "Filter", f
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
     globalFilterFn: "includesString",
+    // The first click on any header sorts ascending, numbers included.
+    sortDescFirst: false,
   });
   const rows = table.getRowModel().rows;
 
