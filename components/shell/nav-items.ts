@@ -12,6 +12,7 @@ export const NAV_ITEMS: readonly NavItem[] = [
   { href: "/scan", label: "Scan a tag", action: "service.record" },
   { href: "/points", label: "Lube points", action: "points.read" },
   { href: "/catalogue", label: "Grease catalogue", action: "catalogue.read" },
+  { href: "/compatibility", label: "Compatibility", action: "compatibility.evaluate" },
   { href: "/stock", label: "Stock", action: "stock.read" },
   { href: "/incidents", label: "Mixing incidents", action: "incidents.read" },
   { href: "/audit", label: "Audit trail", action: "audit.read" },
