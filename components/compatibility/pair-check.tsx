@@ -64,9 +64,11 @@ function SidePicker({ label, side, onChange, greases }: { label: string; side: S
         </label>
       </div>
       {side.mode === "product" ? (
-        <label className="flex flex-col gap-1 text-sm font-bold">
-          Product
-          <select className={inputClasses} value={side.greaseId} onChange={(e) => onChange({ ...side, greaseId: e.target.value })}>
+        <div className="flex flex-col gap-1">
+          <label htmlFor={`${id}-product`} className="text-sm font-bold">
+            Product
+          </label>
+          <select id={`${id}-product`} className={inputClasses} value={side.greaseId} onChange={(e) => onChange({ ...side, greaseId: e.target.value })}>
             <option value="">Choose a grease…</option>
             {greases.map((g) => (
               <option key={g.id} value={g.id}>
@@ -74,7 +76,7 @@ function SidePicker({ label, side, onChange, greases }: { label: string; side: S
               </option>
             ))}
           </select>
-        </label>
+        </div>
       ) : (
         <div className="grid gap-3 sm:grid-cols-2">
           <label className="flex flex-col gap-1 text-sm font-bold">

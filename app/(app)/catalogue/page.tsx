@@ -25,6 +25,9 @@ export default async function CataloguePage() {
             <Link href="/compatibility/check" className={buttonClasses("secondary")}>
               Check a pair
             </Link>
+            <Link href="/catalogue/consolidation" className={buttonClasses("secondary")}>
+              Consolidate
+            </Link>
             <a href="/api/v1/greases/export" download className={buttonClasses("secondary")}>
               Export CSV
             </a>
