@@ -59,8 +59,8 @@ export function CompatibilityMatrix({ views }: { views: MatrixView[] }) {
             <tr>
               <th scope="col" className="sticky left-0 bg-paper-raised p-1" />
               {view.labels.map((l) => (
-                <th key={l.key} scope="col" className="h-36 w-9 p-0 align-bottom">
-                  <span className="block origin-bottom-left translate-x-5 -rotate-60 whitespace-nowrap pb-1 text-left font-bold">{l.label}</span>
+                <th key={l.key} scope="col" className="w-9 p-0 pb-1 align-bottom">
+                  <span className="mx-auto block rotate-180 whitespace-nowrap text-left font-bold [writing-mode:vertical-rl]">{l.label}</span>
                 </th>
               ))}
             </tr>

@@ -42,7 +42,7 @@ export default async function MatrixPage() {
   };
   const perChart: MatrixView[] = CHARTS.map((chart) => ({
     id: chart.id,
-    title: `${chart.shortName}${enabled.includes(chart.id) ? "" : " (not enabled)"}`,
+    title: `${chart.title}${enabled.includes(chart.id) ? "" : " (not enabled)"}`,
     caution: chart.provenance === "transcribed" ? undefined : PROVENANCE[chart.provenance],
     note: `${chart.title}. ${chart.provenanceNote}`,
     labels: chart.thickeners.map((t: Thickener) => ({ key: t, label: THICKENER_LABELS[t] })),
