@@ -1,10 +1,18 @@
 import type { Sequelize } from "sequelize";
+import { Area } from "./area";
+import { Asset } from "./asset";
+import { Changeover } from "./changeover";
 import { CompatibilitySettingsRow } from "./compatibility-settings";
 import { Grease } from "./grease";
 import { GreaseDocument } from "./grease-document";
 import { GreasePack } from "./grease-pack";
+import { GreaseGun } from "./grease-gun";
 import { GreasePairEvidence } from "./grease-pair-evidence";
+import { IdempotencyKey } from "./idempotency-key";
+import { LubePoint } from "./lube-point";
 import { MailOutbox } from "./mail-outbox";
+import { MixingIncident } from "./mixing-incident";
+import { ServiceRecord } from "./service-record";
 import { SignInThrottle } from "./sign-in-throttle";
 import { Site } from "./site";
 import { StoredDocument } from "./stored-document";
@@ -15,12 +23,20 @@ import { UserSession } from "./user-session";
 import { UserSiteAccess } from "./user-site-access";
 
 export {
+  Area,
+  Asset,
+  Changeover,
   CompatibilitySettingsRow,
   Grease,
   GreaseDocument,
   GreasePack,
+  GreaseGun,
   GreasePairEvidence,
+  IdempotencyKey,
+  LubePoint,
   MailOutbox,
+  MixingIncident,
+  ServiceRecord,
   SignInThrottle,
   Site,
   StoredDocument,
@@ -55,6 +71,14 @@ export function initModels(sequelize: Sequelize): void {
   GreaseDocument.initModel(sequelize);
   GreasePairEvidence.initModel(sequelize);
   CompatibilitySettingsRow.initModel(sequelize);
+  Area.initModel(sequelize);
+  Asset.initModel(sequelize);
+  GreaseGun.initModel(sequelize);
+  LubePoint.initModel(sequelize);
+  Changeover.initModel(sequelize);
+  ServiceRecord.initModel(sequelize);
+  MixingIncident.initModel(sequelize);
+  IdempotencyKey.initModel(sequelize);
 
   User.hasMany(UserSession, { foreignKey: "userId", as: "sessions" });
   UserSession.belongsTo(User, { foreignKey: "userId", as: "user" });
@@ -73,4 +97,16 @@ export function initModels(sequelize: Sequelize): void {
   GreasePairEvidence.belongsTo(Grease, { foreignKey: "greaseHighId", as: "greaseHigh" });
   GreasePairEvidence.belongsTo(StoredDocument, { foreignKey: "documentId", as: "document" });
   Site.hasOne(CompatibilitySettingsRow, { foreignKey: "siteId", as: "compatibilitySettings" });
+
+  Site.hasMany(Area, { foreignKey: "siteId", as: "areas" });
+  Area.hasMany(Asset, { foreignKey: "areaId", as: "assets" });
+  Asset.belongsTo(Area, { foreignKey: "areaId", as: "area" });
+  Asset.hasMany(LubePoint, { foreignKey: "assetId", as: "points" });
+  LubePoint.belongsTo(Asset, { foreignKey: "assetId", as: "asset" });
+  LubePoint.belongsTo(Grease, { foreignKey: "assignedGreaseId", as: "assignedGrease" });
+  LubePoint.belongsTo(Grease, { foreignKey: "currentGreaseId", as: "currentGrease" });
+  LubePoint.hasMany(ServiceRecord, { foreignKey: "pointId", as: "services" });
+  LubePoint.hasMany(Changeover, { foreignKey: "pointId", as: "changeovers" });
+  ServiceRecord.belongsTo(LubePoint, { foreignKey: "pointId", as: "point" });
+  MixingIncident.belongsTo(LubePoint, { foreignKey: "pointId", as: "point" });
 }

@@ -3,6 +3,7 @@ import { hash } from "@node-rs/argon2";
 import { QueryTypes, type Sequelize } from "sequelize";
 import type { Role } from "@/lib/domain/permissions";
 import { seedCatalogue } from "./catalogue";
+import { seedPoints } from "./points";
 
 /** The one password of every demo sign-in (listed in the README). */
 export const DEMO_PASSWORD = "demo-grease-2026";
@@ -39,9 +40,11 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
       siteIds.set(site.code, Number(id));
     }
     let leadId: string | null = null;
+    let techId: string | null = null;
     for (const user of DEMO_USERS) {
       const id = randomUUID();
       if (user.role === "lead") leadId = id;
+      if (user.role === "technician") techId = id;
       await sequelize.query(
         `INSERT INTO app_user (id, email, name, role, status, password_hash, unit_system, created_at, updated_at)
          VALUES (?, ?, ?, ?, 'active', ?, 'metric', ?, ?)`,
@@ -55,5 +58,6 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
       }
     }
     await seedCatalogue(sequelize, transaction, now, leadId);
+    await seedPoints(sequelize, transaction, now, { techId: techId!, leadId: leadId! });
   });
 }

@@ -14,10 +14,20 @@ export const getCurrentSession = cache(async (): Promise<ValidSession | null> =>
   return validateSessionToken(jar.get(sessionCookie().name)?.value);
 });
 
-/** For pages: the signed-in user, or a redirect to sign-in. */
+/** A same-site path to return to after sign-in; anything else (other hosts, odd schemes) is dropped. */
+export function safeNextPath(raw: string | null | undefined): string | null {
+  if (!raw || !raw.startsWith("/") || raw.startsWith("//") || raw.startsWith("/\\") || raw.length > 500) return null;
+  if (raw.startsWith("/sign-in") || raw.startsWith("/api/")) return null;
+  return raw;
+}
+
+/** For pages: the signed-in user, or a redirect to sign-in that comes back here afterwards. */
 export async function requirePageUser(): Promise<SessionUser> {
   const session = await getCurrentSession();
-  if (!session) redirect("/sign-in");
+  if (!session) {
+    const next = safeNextPath((await headers()).get("x-pathname"));
+    redirect(next && next !== "/overview" ? `/sign-in?next=${encodeURIComponent(next)}` : "/sign-in");
+  }
   return session.user;
 }
 

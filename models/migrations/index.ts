@@ -1,5 +1,6 @@
 import * as m0001 from "./0001-foundation";
 import * as m0002 from "./0002-catalogue";
+import * as m0003 from "./0003-points";
 
 /**
  * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
@@ -9,4 +10,5 @@ import * as m0002 from "./0002-catalogue";
 export const MIGRATIONS = [
   { name: "0001-foundation.ts", ...m0001 },
   { name: "0002-catalogue.ts", ...m0002 },
+  { name: "0003-points.ts", ...m0003 },
 ];

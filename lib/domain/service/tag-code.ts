@@ -1,0 +1,24 @@
+/**
+ * Lube-point tag codes: 8 characters of Crockford's base-32 alphabet (no I, L, O, U), so a code read aloud or
+ * typed from a worn tag is hard to mistake. 40 bits of randomness; the random source is an argument.
+ */
+export const TAG_ALPHABET = "0123456789ABCDEFGHJKMNPQRSTVWXYZ";
+
+export function tagCodeFrom(randomBytes: Uint8Array): string {
+  if (randomBytes.length < 8) throw new RangeError("needs 8 random bytes");
+  let code = "";
+  for (let i = 0; i < 8; i++) code += TAG_ALPHABET[randomBytes[i]! % 32];
+  return code;
+}
+
+/** Normalises what a person typed: upper case, no spaces or dashes, and the usual misreadings (O→0, I/L→1). */
+export function normaliseTagCode(typed: string): string | null {
+  const cleaned = typed.toUpperCase().replace(/[\s-]/g, "").replace(/O/g, "0").replace(/[IL]/g, "1");
+  return /^[0-9A-HJKMNP-TV-Z]{8}$/.test(cleaned) ? cleaned : null;
+}
+
+/** The tag code inside a scanned QR text: either the bare code or our point URL ending in /p/<code>. */
+export function tagCodeFromScan(text: string): string | null {
+  const match = text.trim().match(/\/p\/([0-9A-Za-z-]{8,10})\/?$/);
+  return normaliseTagCode(match ? match[1]! : text.trim());
+}
