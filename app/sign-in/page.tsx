@@ -2,12 +2,14 @@ import type { Metadata } from "next";
 import { redirect } from "next/navigation";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { Logo } from "@/components/shell/logo";
-import { getCurrentSession } from "@/lib/server/auth";
+import { getCurrentSession, safeNextPath } from "@/lib/server/auth";
 
 export const metadata: Metadata = { title: "Sign in" };
 
-export default async function SignInPage() {
-  if (await getCurrentSession()) redirect("/overview");
+export default async function SignInPage({ searchParams }: { searchParams: Promise<{ next?: string | string[] }> }) {
+  const raw = (await searchParams).next;
+  const next = safeNextPath(typeof raw === "string" ? raw : null) ?? "/overview";
+  if (await getCurrentSession()) redirect(next);
   return (
     <div className="grid min-h-screen md:grid-cols-[1fr_minmax(22rem,28rem)]">
       <section className="hidden flex-col justify-between bg-steel p-10 text-white md:flex">
@@ -34,7 +36,7 @@ export default async function SignInPage() {
         </div>
         <h1 className="mb-1 text-2xl font-bold">Sign in</h1>
         <p className="mb-6 text-sm text-ink-soft">Use the e-mail address your administrator registered.</p>
-        <SignInForm />
+        <SignInForm next={next} />
         <p className="mt-6 text-2xs text-ink-faint">
           No account yet? An administrator sends you an invitation by mail.
         </p>

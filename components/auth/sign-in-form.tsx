@@ -9,7 +9,7 @@ import { SubmitButton } from "@/components/ui/submit-button";
 import { signInSchema, type SignInInput } from "@/lib/validation/auth";
 
 /** Sign-in through the public API (`POST /api/v1/session`), then a full page load of the overview. */
-export function SignInForm() {
+export function SignInForm({ next = "/overview" }: { next?: string }) {
   const [problem, setProblem] = useState<string | null>(null);
   const {
     register,
@@ -33,7 +33,7 @@ export function SignInForm() {
     }
     if (response.ok) {
       // A full load, so the server renders the signed-in layout with the new cookie.
-      window.location.replace(new URL("/overview", window.location.origin).href);
+      window.location.replace(new URL(next, window.location.origin).href);
       return;
     }
     const body = (await response.json().catch(() => null)) as {

@@ -1,20 +1,33 @@
 import type { Metadata } from "next";
+import Link from "next/link";
+import { PointTable } from "@/components/points/point-table";
 import { Forbidden } from "@/components/shell/forbidden";
-import { PageHeader } from "@/components/ui/card";
-import { EmptyState } from "@/components/ui/empty-state";
+import { buttonClasses } from "@/components/ui/button";
+import { Card, PageHeader } from "@/components/ui/card";
 import { pageUserCan } from "@/lib/server/auth";
+import { listPoints } from "@/lib/server/queries/points";
 
 export const metadata: Metadata = { title: "Lube points" };
 
-export default async function Page() {
-  const { allowed } = await pageUserCan("points.read");
+export default async function PointsPage() {
+  const { user, allowed } = await pageUserCan("points.read");
   if (!allowed) return <Forbidden what="Lube points" />;
+  const points = await listPoints(user.id);
+  const counts = { overdue: points.filter((p) => p.due === "overdue").length, due: points.filter((p) => p.due === "due").length };
   return (
     <>
-      <PageHeader title="Lube points" lead="Sites, areas, assets and their lube points, with intervals, quantities and due dates." />
-      <EmptyState title="No lube points yet.">
-        <p>The lubrication lead adds assets and their lube points here (or imports them from a spreadsheet). Each point&apos;s relubrication interval and quantity are computed with a published method and shown step by step.</p>
-      </EmptyState>
+      <PageHeader
+        title="Lube points"
+        lead={`${points.length} lube points on your sites: ${counts.overdue} overdue, ${counts.due} due within a week.`}
+        actions={
+          <Link href="/points/tags" className={buttonClasses("secondary")}>
+            Print tags
+          </Link>
+        }
+      />
+      <Card>
+        <PointTable rows={points} />
+      </Card>
     </>
   );
 }

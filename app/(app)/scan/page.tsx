@@ -1,20 +1,20 @@
 import type { Metadata } from "next";
+import { TagScanner } from "@/components/points/scanner";
 import { Forbidden } from "@/components/shell/forbidden";
-import { PageHeader } from "@/components/ui/card";
-import { EmptyState } from "@/components/ui/empty-state";
+import { Card, PageHeader } from "@/components/ui/card";
 import { pageUserCan } from "@/lib/server/auth";
 
 export const metadata: Metadata = { title: "Scan a tag" };
 
-export default async function Page() {
-  const { allowed } = await pageUserCan("service.record");
-  if (!allowed) return <Forbidden what="Scanning" />;
+export default async function ScanPage() {
+  const { allowed } = await pageUserCan("points.read");
+  if (!allowed) return <Forbidden what="Scanning tags" />;
   return (
-    <>
-      <PageHeader title="Scan a tag" lead="Scan the QR tag on a lube point to see its grease, amount and due state." />
-      <EmptyState title="No lube points have tags yet.">
-        <p>Once the lubrication lead has set up lube points, each gets a printed QR tag. Scanning it here opens the point, checks the cartridge in your hand against the grease in the bearing, and records the service.</p>
-      </EmptyState>
-    </>
+    <div className="mx-auto max-w-md">
+      <PageHeader title="Scan a tag" lead="Point the camera at the QR tag on the bearing housing. The point opens with its grease, amount and due state." />
+      <Card>
+        <TagScanner />
+      </Card>
+    </div>
   );
 }

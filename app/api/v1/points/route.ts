@@ -1,0 +1,15 @@
+import { apiRoute } from "@/lib/server/api";
+import { ValidationError } from "@/lib/server/errors";
+import { listPoints } from "@/lib/server/queries/points";
+import { zodFieldErrors } from "@/lib/validation/field-errors";
+import { pointsQuerySchema } from "@/lib/validation/points";
+
+export const dynamic = "force-dynamic";
+
+/** Lube points of the caller's sites: `?site=` one site, `?due=ok|due|overdue`. */
+export const GET = apiRoute({ action: "points.read" }, async ({ request, user }) => {
+  const parsed = pointsQuerySchema.safeParse(Object.fromEntries(request.nextUrl.searchParams));
+  if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
+  const items = await listPoints(user.id, { siteId: parsed.data.site, due: parsed.data.due });
+  return Response.json({ items: items.map(({ tag, name, asset, site, due, nextDueAt }) => ({ tag, name, asset, site, due, nextDueAt })) });
+});
