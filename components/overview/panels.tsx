@@ -16,22 +16,12 @@ interface Panel {
 const PANELS: Record<Exclude<Role, "admin">, Panel[]> = {
   technician: [
     {
-      title: "Due on your route",
-      empty: "No lube points are due for you yet.",
-      next: "When the lubrication lead sets up lube points and their intervals, the points due or overdue on your route are listed here, nearest first. Scan a tag to start a job.",
-    },
-    {
       title: "Your recent services",
       empty: "You have not recorded a service yet.",
       next: "Each grease job you record — grease, grams or strokes, what you saw — appears here so you can check the shift's work.",
     },
   ],
   lead: [
-    {
-      title: "Overdue lube points",
-      empty: "No overdue lube points.",
-      next: "Overdue and due points per area appear here once lube points have intervals. Start with the grease catalogue, then add assets and lube points.",
-    },
     {
       title: "Stock below its reorder point",
       empty: "No grease is running low.",

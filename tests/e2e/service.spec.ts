@@ -91,3 +91,12 @@ test("the points list sorts overdue first and opens a point with its plan and st
   await expect(page.getByText(/Relubrication interval:/)).toBeVisible();
   await snap(page, "point-detail");
 });
+
+test("the technician's overview lists due points and the route sheet groups them by area", async ({ page }) => {
+  await signIn(page, "tech@example.com");
+  await expect(page.getByRole("heading", { name: /Due and overdue on your sites/ })).toBeVisible();
+  await snap(page, "overview-technician-due");
+  await page.goto("/points/route?days=7");
+  await expect(page.getByTestId("route-sheet").locator("h3").first()).toBeVisible();
+  await snap(page, "route-sheet");
+});

@@ -1,10 +1,12 @@
 import type { Metadata } from "next";
+import { DueList } from "@/components/overview/due-list";
 import { RolePanels, Stat } from "@/components/overview/panels";
 import { Card, PageHeader } from "@/components/ui/card";
 import { Notice } from "@/components/ui/notice";
 import { ROLE_LABELS } from "@/lib/domain/permissions";
 import { requirePageUser } from "@/lib/server/auth";
 import { getAdminOverview, getUserSites } from "@/lib/server/queries/overview";
+import { listPoints } from "@/lib/server/queries/points";
 
 export const metadata: Metadata = { title: "Overview" };
 
@@ -16,6 +18,7 @@ export default async function OverviewPage() {
   return (
     <>
       <PageHeader title={`Good to see you, ${user.name.split(" ")[0]}`} lead={`${ROLE_LABELS[user.role]}. ${siteLine}`} />
+      {user.role === "technician" || user.role === "lead" ? <DuePanel userId={user.id} /> : null}
       {user.role === "admin" ? <AdminOverview /> : <RolePanels role={user.role} />}
       {user.role === "technician" || user.role === "lead" ? (
         <Notice tone="caution" title="Before you grease" className="mt-6">
@@ -26,6 +29,19 @@ export default async function OverviewPage() {
         </Notice>
       ) : null}
     </>
+  );
+}
+
+async function DuePanel({ userId }: { userId: string }) {
+  const points = (await listPoints(userId)).filter((p) => p.due !== "ok");
+  const urgent = [...points].sort((a, b) => (a.nextDueAt ?? "").localeCompare(b.nextDueAt ?? ""));
+  return (
+    <Card className="mb-4">
+      <h2 className="mb-2 text-lg font-bold">
+        Due and overdue on your sites ({points.filter((p) => p.due === "overdue").length} overdue, {points.filter((p) => p.due === "due").length} due)
+      </h2>
+      <DueList items={urgent.slice(0, 12)} total={urgent.length} />
+    </Card>
   );
 }
 

@@ -20,9 +20,14 @@ export default async function PointsPage() {
         title="Lube points"
         lead={`${points.length} lube points on your sites: ${counts.overdue} overdue, ${counts.due} due within a week.`}
         actions={
-          <Link href="/points/tags" className={buttonClasses("secondary")}>
-            Print tags
-          </Link>
+          <>
+            <Link href="/points/route" className={buttonClasses("secondary")}>
+              Route sheet
+            </Link>
+            <Link href="/points/tags" className={buttonClasses("secondary")}>
+              Print tags
+            </Link>
+          </>
         }
       />
       <Card>

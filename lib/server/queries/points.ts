@@ -482,3 +482,36 @@ export async function pointsOfArea(userId: string, areaId: number): Promise<{ ta
   );
   return rows.map((r) => ({ tag: r.tag_code, name: r.name, asset: r.asset }));
 }
+
+/** Plans moving a point to another grease. Only one changeover runs at a point at a time. */
+export async function planChangeover(
+  input: { tag: string; toGreaseId: number; method: "purge" | "clean_out"; shortenedIntervalHours?: number; servicesPlanned: number; notes?: string },
+  userId: string,
+  now = new Date(),
+): Promise<void> {
+  const sequelize = getSequelize();
+  await sequelize.transaction(async (transaction) => {
+    const point = await getPointByTag(input.tag, userId, now, transaction, true);
+    if (point.changeover) throw new ConflictError("changeover_running", "A changeover is already planned or under way at this point.");
+    const to = await getGrease(input.toGreaseId, transaction);
+    if (!to) throw new ValidationError({ toGreaseId: ["No grease with this id."] });
+    if (point.currentGrease?.id === to.id) throw new ValidationError({ toGreaseId: ["This grease is already in the point."] });
+    if (point.foodGradeRequired && to.foodGrade !== "H1") throw new ValidationError({ toGreaseId: ["This point is in a food-grade area: choose an H1 grease."] });
+    await sequelize.query(
+      `INSERT INTO changeover (site_id, point_id, from_grease_id, to_grease_id, method, shortened_interval_hours, services_planned, services_done, state, notes, planned_by, created_at)
+       VALUES (?, ?, ?, ?, ?, ?, ?, 0, 'planned', ?, ?, ?)`,
+      {
+        replacements: [point.siteId, point.id, point.currentGrease?.id ?? null, to.id, input.method, input.shortenedIntervalHours ?? null, input.servicesPlanned, input.notes ?? null, userId, now],
+        transaction,
+      },
+    );
+  });
+  log("info", "changeover_planned", { tag: input.tag, toGreaseId: input.toGreaseId, by: userId });
+}
+
+export async function cancelChangeover(tag: string, userId: string, now = new Date()): Promise<void> {
+  const point = await getPointByTag(tag, userId, now);
+  if (!point.changeover) throw new NotFoundError("No changeover is running at this point.");
+  await getSequelize().query("UPDATE changeover SET state = 'cancelled', completed_at = ? WHERE id = ?", { replacements: [now, point.changeover.id] });
+  log("info", "changeover_cancelled", { tag, by: userId });
+}

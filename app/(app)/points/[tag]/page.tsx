@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { ChangeoverForm } from "@/components/points/changeover-form";
 import { DueBadge } from "@/components/points/due-badge";
 import { ServicePanel } from "@/components/points/service-panel";
 import { Steps } from "@/components/points/steps";
@@ -17,6 +18,7 @@ import { getGrease, listGreases } from "@/lib/server/queries/greases";
 import { getPointByTag, listPointServices, listSiteGuns, pointApiDto } from "@/lib/server/queries/points";
 import { planPoint } from "@/lib/server/plan";
 import { tagQrSvg } from "@/lib/server/tags";
+import { cancelChangeoverAction, planChangeoverAction } from "./actions";
 
 export const metadata: Metadata = { title: "Lube point" };
 
@@ -76,7 +78,7 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
               machine maker&apos;s instructions come first.
             </p>
             <div className="space-y-3">
-              <Steps title="Relubrication interval" method={plan.interval.method} steps={plan.interval.steps} result={plan.interval.intervalHours !== null ? `${plan.interval.intervalHours} h` : "outside the method's range"} />
+              <Steps title="Relubrication interval" method={plan.interval.method} steps={plan.interval.steps} result={plan.interval.intervalHours !== null ? `${Math.round(plan.interval.intervalHours).toLocaleString("en-GB")} h` : "outside the method's range"} />
               <Steps title="Replenishment quantity" method={plan.quantity.method} steps={plan.quantity.steps} result={plan.quantity.quantityGrams !== null ? `${plan.quantity.quantityGrams} g` : "—"} />
               <Steps title="Speed factor n·dm" steps={plan.speed.steps} result={plan.speed.ndm !== null ? `${Math.round(plan.speed.ndm).toLocaleString("en-GB")} mm/min` : "—"} />
               {plan.viscosity ? (
@@ -170,6 +172,18 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
               </Notice>
             ) : null}
           </Card>
+          {can(user.role, "points.write") && !point.sealedForLife ? (
+            <Card>
+              <h2 className="mb-2 text-lg font-bold">Changeover</h2>
+              <ChangeoverForm
+                tag={point.tag}
+                running={Boolean(point.changeover)}
+                greases={greases.map((g) => ({ id: g.id, name: g.name, code: g.code }))}
+                plan={planChangeoverAction}
+                cancel={cancelChangeoverAction}
+              />
+            </Card>
+          ) : null}
         </div>
       </div>
     </>
