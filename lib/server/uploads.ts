@@ -84,3 +84,16 @@ export function attachmentHeader(name: string): string {
   const ascii = name.replace(/[^\x20-\x7e]/g, "_").replace(/["\\]/g, "_");
   return `attachment; filename="${ascii}"; filename*=UTF-8''${encodeURIComponent(name)}`;
 }
+
+/** A stored document as a download: always an attachment, never rendered, never cached by shared caches. */
+export async function documentDownload(documentId: number): Promise<Response> {
+  const doc = await readStoredDocument(documentId);
+  return new Response(new Uint8Array(doc.body), {
+    headers: {
+      "Content-Type": doc.contentType,
+      "Content-Disposition": attachmentHeader(doc.name),
+      "X-Content-Type-Options": "nosniff",
+      "Cache-Control": "private, no-store",
+    },
+  });
+}

@@ -2,7 +2,7 @@ import { apiRoute } from "@/lib/server/api";
 import { NotFoundError } from "@/lib/server/errors";
 import { parseId } from "@/lib/server/params";
 import { listEvidence } from "@/lib/server/queries/compatibility";
-import { attachmentHeader, readStoredDocument } from "@/lib/server/uploads";
+import { documentDownload } from "@/lib/server/uploads";
 
 export const dynamic = "force-dynamic";
 
@@ -11,13 +11,5 @@ export const GET = apiRoute<{ id: string }>({ action: "catalogue.read" }, async 
   const id = parseId(params.id);
   const evidence = (await listEvidence()).find((e) => e.id === id);
   if (!evidence?.documentId) throw new NotFoundError("This evidence has no document.");
-  const doc = await readStoredDocument(evidence.documentId);
-  return new Response(new Uint8Array(doc.body), {
-    headers: {
-      "Content-Type": doc.contentType,
-      "Content-Disposition": attachmentHeader(doc.name),
-      "X-Content-Type-Options": "nosniff",
-      "Cache-Control": "private, no-store",
-    },
-  });
+  return documentDownload(evidence.documentId);
 });

@@ -2,7 +2,7 @@ import { apiRoute } from "@/lib/server/api";
 import { NotFoundError } from "@/lib/server/errors";
 import { parseId } from "@/lib/server/params";
 import { listGreaseDocuments } from "@/lib/server/queries/greases";
-import { attachmentHeader, readStoredDocument } from "@/lib/server/uploads";
+import { documentDownload } from "@/lib/server/uploads";
 
 export const dynamic = "force-dynamic";
 
@@ -11,13 +11,5 @@ export const GET = apiRoute<{ id: string; kind: string }>({ action: "catalogue.r
   const documents = await listGreaseDocuments(parseId(params.id));
   const entry = documents.find((d) => d.kind === params.kind);
   if (!entry) throw new NotFoundError("This grease has no such data sheet yet.");
-  const doc = await readStoredDocument(entry.documentId);
-  return new Response(new Uint8Array(doc.body), {
-    headers: {
-      "Content-Type": doc.contentType,
-      "Content-Disposition": attachmentHeader(doc.name),
-      "X-Content-Type-Options": "nosniff",
-      "Cache-Control": "private, no-store",
-    },
-  });
+  return documentDownload(entry.documentId);
 });
