@@ -4,7 +4,7 @@ import { useActionState } from "react";
 import { Field, describedBy, inputClasses } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
-import type { ActionState } from "@/lib/validation/action-state";
+import { formValues, type ActionState } from "@/lib/validation/action-state";
 
 export interface SettingsFormProps {
   site: { id: number; name: string };
@@ -26,12 +26,14 @@ export function SettingsForm({ site, charts, values, save }: SettingsFormProps) 
   const [state, action] = useActionState(save, { status: "idle" });
   const errors = state.status === "invalid" ? state.fieldErrors : {};
   const prefix = `site-${site.id}`;
+  const sent = formValues(state, {} as Record<string, unknown>);
+  const shown = (name: string, fallback: number) => (name in sent ? String(sent[name] ?? "") : fallback);
   const number = (name: string, label: string, value: number, hint: string) => (
     <Field id={`${prefix}-${name}`} label={label} hint={hint} errors={errors[name]}>
       <input
         id={`${prefix}-${name}`}
         name={name}
-        defaultValue={value}
+        defaultValue={shown(name, value)}
         inputMode="decimal"
         className={inputClasses}
         aria-describedby={describedBy(`${prefix}-${name}`, true)}
@@ -39,7 +41,7 @@ export function SettingsForm({ site, charts, values, save }: SettingsFormProps) 
     </Field>
   );
   return (
-    <form action={action} className="space-y-5" aria-label={`Settings for ${site.name}`}>
+    <form action={action} className="space-y-5" aria-label={`Settings for ${site.name}`} key={state.status === "invalid" ? JSON.stringify(sent) : "initial"}>
       <input type="hidden" name="siteId" value={site.id} />
       <input type="hidden" name="version" value={values.version} />
       {state.status === "success" ? <Notice tone="success">{state.message}</Notice> : null}

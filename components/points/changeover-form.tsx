@@ -4,7 +4,7 @@ import { useActionState } from "react";
 import { Field, inputClasses } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
-import type { ActionState } from "@/lib/validation/action-state";
+import { formValues, type ActionState } from "@/lib/validation/action-state";
 
 type FormAction = (prev: ActionState, form: FormData) => Promise<ActionState>;
 
@@ -13,6 +13,8 @@ export function ChangeoverForm({ tag, running, greases, plan, cancel }: { tag: s
   const [planState, planAction] = useActionState(plan, { status: "idle" });
   const [cancelState, cancelAction] = useActionState(cancel, { status: "idle" });
   const errors = planState.status === "invalid" ? planState.fieldErrors : {};
+  const sent = formValues(planState, {} as Record<string, unknown>);
+  const dv = (k: string, fallback?: string | number) => (sent[k] === undefined ? fallback : String(sent[k]));
   if (running) {
     return (
       <form action={cancelAction} className="space-y-2">
@@ -26,12 +28,12 @@ export function ChangeoverForm({ tag, running, greases, plan, cancel }: { tag: s
     );
   }
   return (
-    <form action={planAction} className="space-y-3" aria-label="Plan a changeover">
+    <form action={planAction} className="space-y-3" aria-label="Plan a changeover" key={planState.status === "invalid" ? JSON.stringify(sent) : "initial"}>
       <input type="hidden" name="tag" value={tag} />
       {planState.status === "success" ? <Notice tone="success">{planState.message}</Notice> : null}
       {planState.status === "error" ? <Notice tone="danger">{planState.message}</Notice> : null}
       <Field id="toGreaseId" label="New grease" errors={errors.toGreaseId}>
-        <select id="toGreaseId" name="toGreaseId" className={inputClasses} defaultValue="">
+        <select id="toGreaseId" name="toGreaseId" className={inputClasses} defaultValue={dv("toGreaseId", "")}>
           <option value="">Choose…</option>
           {greases.map((g) => (
             <option key={g.id} value={g.id}>
@@ -41,21 +43,21 @@ export function ChangeoverForm({ tag, running, greases, plan, cancel }: { tag: s
         </select>
       </Field>
       <Field id="method" label="How the old grease goes" errors={errors.method}>
-        <select id="method" name="method" className={inputClasses} defaultValue="purge">
+        <select id="method" name="method" className={inputClasses} defaultValue={dv("method", "purge")}>
           <option value="purge">Purge with the new grease (drain plug open)</option>
           <option value="clean_out">Clean out the housing first</option>
         </select>
       </Field>
       <div className="grid grid-cols-2 gap-3">
         <Field id="shortenedIntervalHours" label="Shortened interval (h)" errors={errors.shortenedIntervalHours} hint="Until the old grease is gone.">
-          <input id="shortenedIntervalHours" name="shortenedIntervalHours" inputMode="numeric" className={inputClasses} />
+          <input id="shortenedIntervalHours" name="shortenedIntervalHours" inputMode="numeric" defaultValue={dv("shortenedIntervalHours")} className={inputClasses} />
         </Field>
         <Field id="servicesPlanned" label="Services until done" errors={errors.servicesPlanned}>
-          <input id="servicesPlanned" name="servicesPlanned" inputMode="numeric" defaultValue={3} className={inputClasses} />
+          <input id="servicesPlanned" name="servicesPlanned" inputMode="numeric" defaultValue={dv("servicesPlanned", 3)} className={inputClasses} />
         </Field>
       </div>
       <Field id="co-notes" label="Instructions (optional)" errors={errors.notes}>
-        <input id="co-notes" name="notes" className={inputClasses} />
+        <input id="co-notes" name="notes" defaultValue={dv("notes")} className={inputClasses} />
       </Field>
       <SubmitButton pendingLabel="Planning…">Plan the changeover</SubmitButton>
     </form>

@@ -29,9 +29,9 @@ export function AppShell({ user, signOut, children }: AppShellProps) {
           </div>
           <div className="order-2 ml-auto flex items-center gap-3 md:order-3">
             <div className="text-right leading-tight">
-              <p className="text-sm font-bold" data-testid="signed-in-name">
+              <Link href="/account" className="text-sm font-bold text-white" data-testid="signed-in-name">
                 {user.name}
-              </p>
+              </Link>
               <p className="text-2xs text-steel-light" data-testid="signed-in-role">
                 {ROLE_LABELS[user.role]}
               </p>

@@ -26,7 +26,10 @@ export async function runAction<S extends z.ZodType>(
     return { status: "success", message: options.success };
   } catch (error) {
     const appError = error instanceof AppError ? error : toAppError(error);
-    if (appError.fields) return { status: "invalid", fieldErrors: appError.fields, message: appError.message };
+    if (appError.fields) {
+      const values = input && typeof input === "object" && !Array.isArray(input) ? (input as Record<string, unknown>) : undefined;
+      return { status: "invalid", fieldErrors: appError.fields, message: appError.message, values };
+    }
     return { status: "error", message: appError.message };
   }
 }

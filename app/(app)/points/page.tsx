@@ -21,6 +21,12 @@ export default async function PointsPage() {
         lead={`${points.length} lube points on your sites: ${counts.overdue} overdue, ${counts.due} due within a week.`}
         actions={
           <>
+            <Link href="/points/plant" className={buttonClasses("secondary")}>
+              Plant tree
+            </Link>
+            <Link href="/points/import" className={buttonClasses("secondary")}>
+              Import CSV
+            </Link>
             <Link href="/points/route" className={buttonClasses("secondary")}>
               Route sheet
             </Link>

@@ -80,6 +80,7 @@ export async function listPoints(userId: string, filter: { siteId?: number; due?
 export interface PointDetail {
   id: number;
   siteId: number;
+  assetId: number;
   tag: string;
   name: string;
   asset: string;
@@ -143,6 +144,7 @@ export async function getPointByTag(tag: string, userId: string, now = new Date(
   return {
     id: Number(r.id),
     siteId: Number(r.site_id),
+    assetId: Number(r.asset_id),
     tag: String(r.tag_code),
     name: String(r.name),
     asset: `${r.asset_tag} ${r.asset_name}`,

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { GreaseImport } from "@/components/catalogue/grease-import";
+import { CsvImport } from "@/components/ui/csv-import";
 import { Forbidden } from "@/components/shell/forbidden";
 import { Card, PageHeader } from "@/components/ui/card";
 import { pageUserCan } from "@/lib/server/auth";
@@ -18,7 +18,14 @@ export default async function ImportPage() {
         lead="The file is checked first: every bad row and cell is marked before anything is written. The export of the catalogue has the same columns, so it is a good template."
       />
       <Card>
-        <GreaseImport columns={GREASE_CSV_COLUMNS.map(([c]) => c)} preview={previewGreaseImportAction} commit={commitGreaseImportAction} />
+        <CsvImport
+          columns={GREASE_CSV_COLUMNS.map(([c]) => c)}
+          preview={previewGreaseImportAction}
+          commit={commitGreaseImportAction}
+          noun="grease(s)"
+          hint={'Packs as kind:grams joined by ";", e.g. cartridge:400;pail:18000.'}
+          doneHref="/catalogue"
+        />
       </Card>
     </>
   );

@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ChangeoverForm } from "@/components/points/changeover-form";
 import { DueBadge } from "@/components/points/due-badge";
@@ -21,6 +22,8 @@ import { tagQrSvg } from "@/lib/server/tags";
 import { cancelChangeoverAction, planChangeoverAction } from "./actions";
 
 export const metadata: Metadata = { title: "Lube point" };
+
+const round = (value: number | null, digits = 0) => (value === null ? "—" : Number(value.toFixed(digits)).toLocaleString("en-GB", { maximumFractionDigits: digits }));
 
 const SOURCE = { override: "set by the lead", maker: "from the equipment maker", calculated: "calculated", none: "not set" } as const;
 
@@ -45,7 +48,17 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
 
   return (
     <>
-      <PageHeader title={point.name} lead={`${point.asset} · ${point.area} · ${point.site} · tag ${point.tag}`} />
+      <PageHeader
+        title={point.name}
+        lead={`${point.asset} · ${point.area} · ${point.site} · tag ${point.tag}`}
+        actions={
+          can(user.role, "points.write") ? (
+            <Link href={`/points/${point.tag}/edit`} className="rounded-md border border-line-strong bg-paper-raised px-4 py-2 text-sm font-bold no-underline">
+              Edit the point
+            </Link>
+          ) : undefined
+        }
+      />
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="space-y-6">
           {canRecord ? (
@@ -71,15 +84,15 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
           <Card>
             <h2 className="mb-1 text-lg font-bold">Plan</h2>
             <p className="mb-3 text-sm text-ink-soft">
-              Interval {plan.effectiveInterval.value ?? "—"} h ({SOURCE[plan.effectiveInterval.source]}), quantity{" "}
-              {plan.effectiveQuantity.value ?? "—"} g ({SOURCE[plan.effectiveQuantity.source]}).
+              Interval {round(plan.effectiveInterval.value)} h ({SOURCE[plan.effectiveInterval.source]}), quantity{" "}
+              {round(plan.effectiveQuantity.value, 2)} g ({SOURCE[plan.effectiveQuantity.source]}).
               {point.overrideReason ? ` Override reason: ${point.overrideReason}.` : ""}
               {point.makerNote ? ` Maker: ${point.makerNote}.` : ""} The calculators are planning aids: the bearing or
               machine maker&apos;s instructions come first.
             </p>
             <div className="space-y-3">
-              <Steps title="Relubrication interval" method={plan.interval.method} steps={plan.interval.steps} result={plan.interval.intervalHours !== null ? `${Math.round(plan.interval.intervalHours).toLocaleString("en-GB")} h` : "outside the method's range"} />
-              <Steps title="Replenishment quantity" method={plan.quantity.method} steps={plan.quantity.steps} result={plan.quantity.quantityGrams !== null ? `${plan.quantity.quantityGrams} g` : "—"} />
+              <Steps title="Relubrication interval" method={plan.interval.method} steps={plan.interval.steps} result={plan.interval.intervalHours !== null ? `${round(plan.interval.intervalHours)} h` : "outside the method's range"} />
+              <Steps title="Replenishment quantity" method={plan.quantity.method} steps={plan.quantity.steps} result={plan.quantity.quantityGrams !== null ? `${round(plan.quantity.quantityGrams, 2)} g` : "—"} />
               <Steps title="Speed factor n·dm" steps={plan.speed.steps} result={plan.speed.ndm !== null ? `${Math.round(plan.speed.ndm).toLocaleString("en-GB")} mm/min` : "—"} />
               {plan.viscosity ? (
                 <Steps title="Viscosity ratio κ" steps={plan.viscosity.steps} result={plan.viscosity.kappa !== null ? `κ = ${plan.viscosity.kappa.toFixed(2)}` : "—"} />

@@ -11,7 +11,7 @@ export const POST = apiRoute({ action: "calculations.use", body: relubricationSc
   const strokes = body.gunGramsPerStroke && quantity.quantityGrams !== null ? gunStrokes(quantity.quantityGrams, body.gunGramsPerStroke) : null;
   return Response.json({
     intervalHours: interval.intervalHours === null ? null : Math.round(interval.intervalHours),
-    quantityGrams: quantity.quantityGrams,
+    quantityGrams: quantity.quantityGrams === null ? null : Math.round(quantity.quantityGrams * 100) / 100,
     ...(strokes ? { strokes: strokes.strokes } : {}),
     method: `${interval.method}; ${quantity.method}`,
     steps: [...interval.steps, ...quantity.steps, ...(strokes?.steps ?? [])],

@@ -2,9 +2,9 @@
 
 import Link from "next/link";
 import { useState, useTransition } from "react";
-import { Button } from "@/components/ui/button";
-import { Field, inputClasses } from "@/components/ui/field";
-import { Notice } from "@/components/ui/notice";
+import { Button } from "./button";
+import { Field, inputClasses } from "./field";
+import { Notice } from "./notice";
 import { cn } from "@/lib/cn";
 
 interface PreviewRow {
@@ -21,14 +21,18 @@ export interface ImportState {
   imported?: number;
 }
 
-export interface GreaseImportProps {
+export interface CsvImportProps {
   columns: string[];
   preview: (text: unknown) => Promise<ImportState>;
   commit: (text: unknown) => Promise<ImportState>;
+  /** What a row becomes, plural, e.g. "greases". */
+  noun: string;
+  hint: string;
+  doneHref: string;
 }
 
 /** CSV import: choose a file, see every bad row and cell, then import the good rows in one go. */
-export function GreaseImport({ columns, preview, commit }: GreaseImportProps) {
+export function CsvImport({ columns, preview, commit, noun, hint, doneHref }: CsvImportProps) {
   const [text, setText] = useState<string | null>(null);
   const [fileName, setFileName] = useState("");
   const [state, setState] = useState<ImportState | null>(null);
@@ -61,7 +65,7 @@ export function GreaseImport({ columns, preview, commit }: GreaseImportProps) {
 
   return (
     <div className="space-y-4">
-      <Field id="csv-file" label="CSV file" hint={`Columns: ${columns.join(", ")}. Packs as kind:grams joined by ";", e.g. cartridge:400;pail:18000.`}>
+      <Field id="csv-file" label="CSV file" hint={`Columns: ${columns.join(", ")}. ${hint}`}>
         <input id="csv-file" type="file" accept=".csv,text/csv" className={inputClasses} onChange={onFile} aria-describedby="csv-file-hint" />
       </Field>
       {pending ? (
@@ -80,7 +84,7 @@ export function GreaseImport({ columns, preview, commit }: GreaseImportProps) {
       ))}
       {state?.status === "imported" ? (
         <Notice tone="success" title="Imported">
-          {state.imported} grease(s) were added{bad.length ? `; ${bad.length} row(s) were skipped` : ""}. <Link href="/catalogue">Open the catalogue</Link>.
+          {state.imported} {noun} were added{bad.length ? `; ${bad.length} row(s) were skipped` : ""}. <Link href={doneHref}>Open them</Link>.
         </Notice>
       ) : null}
       {state && state.rows.length > 0 && state.status === "preview" ? (
