@@ -21,7 +21,7 @@ export const envSchema = z.object({
     .default("greaseledger"),
   DATABASE_USER: z.string().min(1).default("app"),
   DATABASE_PASSWORD: z.string().min(1),
-  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
+  DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(20),
   SMTP_HOST: z.string().min(1).default("127.0.0.1"),
   SMTP_PORT: port.default(2525),
   SMTP_SECURE: boolish.default(false),

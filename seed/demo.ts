@@ -4,6 +4,7 @@ import { QueryTypes, type Sequelize } from "sequelize";
 import type { Role } from "@/lib/domain/permissions";
 import { seedCatalogue } from "./catalogue";
 import { seedPoints } from "./points";
+import { seedStock } from "./stock";
 
 /** The one password of every demo sign-in (listed in the README). */
 export const DEMO_PASSWORD = "demo-grease-2026";
@@ -41,10 +42,12 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
     }
     let leadId: string | null = null;
     let techId: string | null = null;
+    let clerkId: string | null = null;
     for (const user of DEMO_USERS) {
       const id = randomUUID();
       if (user.role === "lead") leadId = id;
       if (user.role === "technician") techId = id;
+      if (user.role === "clerk") clerkId = id;
       await sequelize.query(
         `INSERT INTO app_user (id, email, name, role, status, password_hash, unit_system, created_at, updated_at)
          VALUES (?, ?, ?, ?, 'active', ?, 'metric', ?, ?)`,
@@ -59,5 +62,6 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
     }
     await seedCatalogue(sequelize, transaction, now, leadId);
     await seedPoints(sequelize, transaction, now, { techId: techId!, leadId: leadId! });
+    await seedStock(sequelize, transaction, now, { clerkId: clerkId!, leadId: leadId! });
   });
 }

@@ -24,7 +24,7 @@ export function createSequelize(env: Env, options: { poolMax?: number } = {}): S
       statementCounter.count += 1;
     },
     benchmark: false,
-    pool: { max: options.poolMax ?? env.DATABASE_POOL_MAX, min: 0, acquire: 4000, idle: 10_000, evict: 5000 },
+    pool: { max: options.poolMax ?? env.DATABASE_POOL_MAX, min: 0, acquire: 10_000, idle: 10_000, evict: 5000 },
     dialectOptions: { connectTimeout: 3000, socketTimeout: 30_000 },
     define: { underscored: true },
   });

@@ -1,6 +1,7 @@
 import * as m0001 from "./0001-foundation";
 import * as m0002 from "./0002-catalogue";
 import * as m0003 from "./0003-points";
+import * as m0004 from "./0004-stock";
 
 /**
  * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
@@ -11,4 +12,5 @@ export const MIGRATIONS = [
   { name: "0001-foundation.ts", ...m0001 },
   { name: "0002-catalogue.ts", ...m0002 },
   { name: "0003-points.ts", ...m0003 },
+  { name: "0004-stock.ts", ...m0004 },
 ];

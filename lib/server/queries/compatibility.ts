@@ -1,5 +1,5 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import {
   CHARTS,
   DEFAULT_COMPATIBILITY_SETTINGS,
@@ -26,9 +26,9 @@ export interface SiteCompatibilitySettings extends CompatibilitySettings, Mixtur
 }
 
 /** A site's settings, or the defaults when the lead has not changed them (version 0). */
-export async function getSiteSettings(siteId: number): Promise<SiteCompatibilitySettings> {
+export async function getSiteSettings(siteId: number, transaction?: Transaction): Promise<SiteCompatibilitySettings> {
   const { CompatibilitySettingsRow } = boundModels();
-  const row = await CompatibilitySettingsRow.findByPk(siteId);
+  const row = await CompatibilitySettingsRow.findByPk(siteId, { transaction });
   if (!row) return { siteId, version: 0, ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
   return {
     siteId,
@@ -147,7 +147,7 @@ function evidenceDto(r: EvidenceRow): EvidenceDto {
 }
 
 /** Evidence records, newest first; for one pair when both ids are given, for one grease when one is. */
-export async function listEvidence(filter: { greaseId?: number; pair?: [number, number] } = {}): Promise<EvidenceDto[]> {
+export async function listEvidence(filter: { greaseId?: number; pair?: [number, number] } = {}, transaction?: Transaction): Promise<EvidenceDto[]> {
   const where: string[] = [];
   const replacements: number[] = [];
   if (filter.pair) {
@@ -162,7 +162,7 @@ export async function listEvidence(filter: { greaseId?: number; pair?: [number, 
      JOIN grease gl ON gl.id = e.grease_low_id JOIN grease gh ON gh.id = e.grease_high_id
      LEFT JOIN stored_document d ON d.id = e.document_id
      ${where.length ? `WHERE ${where.join(" AND ")}` : ""} ORDER BY e.recorded_at DESC, e.id DESC`,
-    { replacements, type: QueryTypes.SELECT },
+    { replacements, type: QueryTypes.SELECT, transaction },
   );
   return rows.map(evidenceDto);
 }

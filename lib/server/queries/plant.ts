@@ -13,8 +13,8 @@ import { userSiteIds } from "./users";
 
 const isDuplicate = (e: unknown) => (e as { name?: string }).name === "SequelizeUniqueConstraintError" || (e as { original?: { errno?: number } }).original?.errno === 1062;
 
-async function assertSite(userId: string, siteId: number) {
-  if (!(await userSiteIds(userId)).includes(siteId)) throw new ForbiddenError("You have no access to this site.");
+async function assertSite(userId: string, siteId: number, transaction?: Transaction) {
+  if (!(await userSiteIds(userId, transaction)).includes(siteId)) throw new ForbiddenError("You have no access to this site.");
 }
 
 export async function createArea(input: { siteId: number; code: string; name: string }, userId: string): Promise<number> {
@@ -41,7 +41,7 @@ async function areaSite(areaId: number, transaction?: Transaction): Promise<numb
 
 export async function createAsset(input: { areaId: number; tag: string; name: string; kind: string; frameSize?: string }, userId: string, transaction?: Transaction): Promise<number> {
   const siteId = await areaSite(input.areaId, transaction);
-  await assertSite(userId, siteId);
+  await assertSite(userId, siteId, transaction);
   const now = new Date();
   try {
     const [id] = await getSequelize().query(
@@ -69,7 +69,7 @@ async function assetSite(assetId: number, transaction?: Transaction): Promise<nu
 export async function savePoint(input: PointInput, userId: string, tag?: string, transaction?: Transaction): Promise<string> {
   const sequelize = getSequelize();
   const siteId = await assetSite(input.assetId, transaction);
-  await assertSite(userId, siteId);
+  await assertSite(userId, siteId, transaction);
   const grease = input.assignedGreaseId ? await getGrease(input.assignedGreaseId, transaction) : null;
   if (input.assignedGreaseId && !grease) throw new ValidationError({ assignedGreaseId: ["No grease with this id."] });
   if (grease && input.foodGradeRequired && grease.foodGrade !== "H1") throw new ValidationError({ assignedGreaseId: ["This point is in a food-grade area: choose an H1 grease."] });
@@ -111,7 +111,7 @@ export async function savePoint(input: PointInput, userId: string, tag?: string,
     "SELECT id, site_id, last_serviced_at FROM lube_point WHERE tag_code = ?",
     { replacements: [tag], type: QueryTypes.SELECT, transaction },
   );
-  if (!current || !(await userSiteIds(userId)).includes(Number(current.site_id))) throw new NotFoundError("No lube point with this tag on your sites.");
+  if (!current || !(await userSiteIds(userId, transaction)).includes(Number(current.site_id))) throw new NotFoundError("No lube point with this tag on your sites.");
   const due = current.last_serviced_at && interval ? nextDueAt({ lastServicedAt: new Date(current.last_serviced_at), intervalHours: interval, runningHoursPerDay: input.runningHoursPerDay }) : null;
   const sets = cols.split(",").map((c) => `${c.trim()} = ?`).join(", ");
   await sequelize.query(`UPDATE lube_point SET ${sets}, next_due_at = ?, version = version + 1, updated_at = ? WHERE id = ?`, {

@@ -122,7 +122,7 @@ const n = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 
 /** A point by its tag code, only when it belongs to one of the caller's sites (otherwise 404). */
 export async function getPointByTag(tag: string, userId: string, now = new Date(), transaction?: Transaction, lock = false): Promise<PointDetail> {
-  const sites = await userSiteIds(userId);
+  const sites = await userSiteIds(userId, transaction);
   const [r] = await getSequelize().query<Record<string, unknown>>(
     `SELECT p.*, a.name AS asset_name, a.tag AS asset_tag, a.kind AS asset_kind, ar.name AS area_name, s.name AS site_name,
             ga.code AS ga_code, ga.name AS ga_name, gc.code AS gc_code, gc.name AS gc_name
@@ -233,7 +233,7 @@ export interface ServiceInput {
 export async function checkGreaseForPoint(point: PointDetail, greaseId: number, transaction?: Transaction): Promise<MixResult & { changeoverId: number | null }> {
   const candidate = await getGrease(greaseId, transaction);
   if (!candidate) throw new ValidationError({ greaseId: ["No grease with this id."] });
-  const settings = await getSiteSettings(point.siteId);
+  const settings = await getSiteSettings(point.siteId, transaction);
   const context = { foodGradeRequired: point.foodGradeRequired };
   if (point.changeover) {
     if (candidate.id === point.changeover.toGrease.id) {
@@ -261,7 +261,7 @@ export async function checkGreaseForPoint(point: PointDetail, greaseId: number, 
   }
   const inPoint = point.currentGrease ? await getGrease(point.currentGrease.id, transaction) : null;
   const reference = inPoint ?? candidate;
-  const evidence = inPoint && inPoint.id !== candidate.id ? await listEvidence({ pair: [inPoint.id, candidate.id] }) : [];
+  const evidence = inPoint && inPoint.id !== candidate.id ? await listEvidence({ pair: [inPoint.id, candidate.id] }, transaction) : [];
   const result = evaluateMix(profileOf(reference), profileOf(candidate), { ...context, evidence }, settings);
   if (!inPoint) {
     result.reasons.unshift({ kind: "same_product", verdict: result.verdict, message: "No grease is recorded in this point yet; only the point's own needs were checked." });

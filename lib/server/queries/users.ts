@@ -1,6 +1,6 @@
 import "server-only";
 import { createHash, randomBytes, randomUUID } from "node:crypto";
-import { QueryTypes } from "sequelize";
+import { QueryTypes, type Transaction } from "sequelize";
 import { getEnv } from "@/lib/env";
 import { ROLE_LABELS, type Role } from "@/lib/domain/permissions";
 import { getSequelize } from "../db";
@@ -67,11 +67,11 @@ export async function listUsers(): Promise<UserListItem[]> {
   }));
 }
 
-/** The site ids a user may see. */
-export async function userSiteIds(userId: string): Promise<number[]> {
+/** The site ids a user may see. Inside a transaction pass it, so the query does not wait for a second pool connection. */
+export async function userSiteIds(userId: string, transaction?: Transaction): Promise<number[]> {
   const rows = await getSequelize().query<{ site_id: number }>(
     "SELECT site_id FROM user_site_access WHERE user_id = ?",
-    { replacements: [userId], type: QueryTypes.SELECT },
+    { replacements: [userId], type: QueryTypes.SELECT, transaction },
   );
   return rows.map((r) => Number(r.site_id));
 }
