@@ -11,7 +11,7 @@ import { enqueueMail } from "../mail/outbox";
 import { getEnv } from "@/lib/env";
 import { getSiteSettings, listEvidence, profileOf } from "./compatibility";
 import { getGrease } from "./greases";
-import { userSiteIds } from "./users";
+import { siteLeadEmails, userSiteIds } from "./users";
 
 export interface GreaseRefDto {
   id: number;
@@ -269,14 +269,6 @@ export async function checkGreaseForPoint(point: PointDetail, greaseId: number, 
   return { ...result, changeoverId: null };
 }
 
-async function siteLeadEmails(siteId: number, transaction: Transaction): Promise<string[]> {
-  const rows = await getSequelize().query<{ email: string }>(
-    `SELECT u.email FROM app_user u JOIN user_site_access a ON a.user_id = u.id
-     WHERE a.site_id = ? AND u.role = 'lead' AND u.status = 'active' ORDER BY u.email`,
-    { replacements: [siteId], type: QueryTypes.SELECT, transaction },
-  );
-  return rows.map((r) => r.email);
-}
 
 /**
  * Records a service at a point, or refuses it. Allowed: one service row, the point's last service, next due

@@ -9,7 +9,7 @@ import { ConflictError, ValidationError } from "../errors";
 import { idempotent, type StoredAnswer } from "../idempotency";
 import { log } from "../log";
 import { enqueueMail } from "../mail/outbox";
-import { userSiteIds } from "./users";
+import { siteLeadEmails, userSiteIds } from "./users";
 
 const dateOnly = (d: Date) => d.toISOString().slice(0, 10);
 const toDate = (v: string | Date | null | undefined) => (v ? new Date(typeof v === "string" ? `${v.slice(0, 10)}T00:00:00Z` : v) : null);
@@ -70,13 +70,6 @@ export async function reorderPointGrams(siteId: number, greaseId: number, leadTi
   return { grams: rp.reorderPointGrams, gramsPerWeek };
 }
 
-async function siteLeadEmails(siteId: number, transaction: Transaction): Promise<string[]> {
-  const rows = await getSequelize().query<{ email: string }>(
-    "SELECT u.email FROM app_user u JOIN user_site_access a ON a.user_id = u.id WHERE a.site_id = ? AND u.role = 'lead' AND u.status = 'active' ORDER BY u.email",
-    { replacements: [siteId], type: QueryTypes.SELECT, transaction },
-  );
-  return rows.map((r) => r.email);
-}
 
 /**
  * After a movement: when the grease has fallen below its reorder point and no low-stock episode is open,

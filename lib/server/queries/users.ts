@@ -255,3 +255,13 @@ export async function setUnitSystem(userId: string, unitSystem: "metric" | "impe
     replacements: [unitSystem, new Date(), userId],
   });
 }
+
+/** The e-mail addresses of a site's active lubrication leads (for reorder and incident mail). */
+export async function siteLeadEmails(siteId: number, transaction?: Transaction): Promise<string[]> {
+  const rows = await getSequelize().query<{ email: string }>(
+    `SELECT u.email FROM app_user u JOIN user_site_access a ON a.user_id = u.id
+     WHERE a.site_id = ? AND u.role = 'lead' AND u.status = 'active' ORDER BY u.email`,
+    { replacements: [siteId], type: QueryTypes.SELECT, transaction },
+  );
+  return rows.map((r) => r.email);
+}
