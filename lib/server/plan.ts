@@ -38,6 +38,8 @@ export interface PointPlan {
   speed: SpeedFactorResult;
   effectiveInterval: EffectiveValue;
   effectiveQuantity: EffectiveValue;
+  /** Strokes of each calibrated gun of the site for the quantity that applies. */
+  strokes: { gun: string; calibratedOn: string; strokes: number | null; steps: { label: string; value: string }[] }[];
   viscosity?: { atTemperature: number | null; rated: number | null; kappa: number | null; steps: { label: string; value: string }[]; warnings: string[] };
   warnings: string[];
 }
@@ -47,7 +49,12 @@ export interface PointPlan {
  * the values that apply (override, maker, calculated), the speed factor and, with a grease, κ at the operating
  * temperature and the grease's suitability.
  */
-export function planPoint(p: PointPlanInput, grease: GreaseDto | null, foodGradeRequired = false): PointPlan {
+export function planPoint(
+  p: PointPlanInput,
+  grease: GreaseDto | null,
+  foodGradeRequired = false,
+  guns: readonly { label: string; gramsPerStroke: number; calibratedOn: string }[] = [],
+): PointPlan {
   const interval = relubricationInterval({
     bearingType: p.bearingType,
     boreMm: p.boreMm,
@@ -84,15 +91,23 @@ export function planPoint(p: PointPlanInput, grease: GreaseDto | null, foodGrade
       warnings.push(...viscosity.warnings);
     }
   }
+  const effectiveQuantity = effectiveValue({ override: p.quantityGramsOverride, maker: p.makerQuantityGrams, calculated: quantity.quantityGrams });
+  const strokes =
+    effectiveQuantity.value === null
+      ? []
+      : guns.map((g) => {
+          const result = gunStrokes(effectiveQuantity.value!, g.gramsPerStroke);
+          return { gun: g.label, calibratedOn: g.calibratedOn, strokes: result.strokes, steps: result.steps.map((s) => ({ label: `${g.label}: ${s.label}`, value: s.value })) };
+        });
   return {
     interval,
     quantity,
     speed,
+    strokes,
     effectiveInterval: effectiveValue({ override: p.intervalHoursOverride, maker: p.makerIntervalHours, calculated: interval.intervalHours }),
-    effectiveQuantity: effectiveValue({ override: p.quantityGramsOverride, maker: p.makerQuantityGrams, calculated: quantity.quantityGrams }),
+    effectiveQuantity,
     viscosity,
     warnings: [...warnings, ...interval.warnings, ...quantity.warnings, ...speed.warnings],
   };
 }
 
-export { gunStrokes };

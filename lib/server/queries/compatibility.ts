@@ -146,11 +146,14 @@ function evidenceDto(r: EvidenceRow): EvidenceDto {
   };
 }
 
-/** Evidence records, newest first; for one pair when both ids are given, for one grease when one is. */
-export async function listEvidence(filter: { greaseId?: number; pair?: [number, number] } = {}, transaction?: Transaction): Promise<EvidenceDto[]> {
+/** Evidence records, newest first: one record by id, those of one pair, of one grease, or all. */
+export async function listEvidence(filter: { id?: number; greaseId?: number; pair?: [number, number] } = {}, transaction?: Transaction): Promise<EvidenceDto[]> {
   const where: string[] = [];
   const replacements: number[] = [];
-  if (filter.pair) {
+  if (filter.id) {
+    where.push("e.id = ?");
+    replacements.push(filter.id);
+  } else if (filter.pair) {
     where.push("e.grease_low_id = ? AND e.grease_high_id = ?");
     replacements.push(Math.min(...filter.pair), Math.max(...filter.pair));
   } else if (filter.greaseId) {
@@ -244,6 +247,6 @@ export async function createEvidence(input: EvidenceInput, userId: string, docum
     },
   );
   log("info", "evidence_recorded", { evidenceId: id, greases: [a.id, b.id], verdict, by: userId });
-  const [dto] = (await listEvidence({ pair: [a.id, b.id] })).filter((e) => e.id === Number(id));
+  const [dto] = await listEvidence({ id: Number(id) });
   return dto!;
 }

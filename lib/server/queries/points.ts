@@ -77,6 +77,11 @@ export async function listPoints(userId: string, filter: { siteId?: number; due?
   return filter.due ? items.filter((i) => i.due === filter.due) : items;
 }
 
+/** Points to grease by `until` (never-serviced ones included, sealed ones never), in walking order per area. */
+export async function listPointsDueBy(userId: string, until: Date, now = new Date()): Promise<PointListItem[]> {
+  return (await listPoints(userId, {}, now)).filter((p) => !p.sealedForLife && (p.nextDueAt === null || new Date(p.nextDueAt).getTime() <= until.getTime()));
+}
+
 export interface PointDetail {
   id: number;
   siteId: number;

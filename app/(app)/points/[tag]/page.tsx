@@ -17,7 +17,7 @@ import { pageUserCan } from "@/lib/server/auth";
 import { NotFoundError } from "@/lib/server/errors";
 import { getGrease, listGreases } from "@/lib/server/queries/greases";
 import { getPointByTag, listPointServices, listSiteGuns, pointApiDto } from "@/lib/server/queries/points";
-import { gunStrokes, planPoint } from "@/lib/server/plan";
+import { planPoint } from "@/lib/server/plan";
 import { tagQrSvg } from "@/lib/server/tags";
 import { cancelChangeoverAction, planChangeoverAction } from "./actions";
 
@@ -43,6 +43,7 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
     { ...point, bearingType: point.bearingType as BearingType, contamination: point.contamination as Level, moisture: point.moisture as Level, vibration: point.vibration as Level },
     assigned,
     point.foodGradeRequired,
+    guns,
   );
   const canRecord = can(user.role, "service.record");
 
@@ -93,11 +94,11 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
             <div className="space-y-3">
               <Steps title="Relubrication interval" method={plan.interval.method} steps={plan.interval.steps} result={plan.interval.intervalHours !== null ? `${round(plan.interval.intervalHours)} h` : "outside the method's range"} />
               <Steps title="Replenishment quantity" method={plan.quantity.method} steps={plan.quantity.steps} result={plan.quantity.quantityGrams !== null ? `${round(plan.quantity.quantityGrams, 2)} g` : "—"} />
-              {plan.effectiveQuantity.value !== null && guns.length ? (
+              {plan.strokes.length ? (
                 <Steps
                   title="Gun strokes"
-                  steps={guns.flatMap((g) => gunStrokes(plan.effectiveQuantity.value!, g.gramsPerStroke).steps.map((step) => ({ label: `${g.label}: ${step.label}`, value: step.value })))}
-                  result={guns.map((g) => `${gunStrokes(plan.effectiveQuantity.value!, g.gramsPerStroke).strokes ?? "—"} with ${g.label} (calibrated ${g.calibratedOn})`).join("; ")}
+                  steps={plan.strokes.flatMap((s) => s.steps)}
+                  result={plan.strokes.map((s) => `${s.strokes ?? "—"} with ${s.gun} (calibrated ${s.calibratedOn})`).join("; ")}
                 />
               ) : null}
               <Steps title="Speed factor n·dm" steps={plan.speed.steps} result={plan.speed.ndm !== null ? `${Math.round(plan.speed.ndm).toLocaleString("en-GB")} mm/min` : "—"} />

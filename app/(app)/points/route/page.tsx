@@ -6,7 +6,7 @@ import { Forbidden } from "@/components/shell/forbidden";
 import { Card, PageHeader } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { pageUserCan } from "@/lib/server/auth";
-import { listPoints } from "@/lib/server/queries/points";
+import { listPointsDueBy } from "@/lib/server/queries/points";
 
 export const metadata: Metadata = { title: "Route sheet" };
 
@@ -19,7 +19,7 @@ export default async function RoutePage({ searchParams }: { searchParams: Promis
   const days = (DAYS as readonly number[]).includes(raw) ? raw : 1;
   const now = new Date();
   const until = now.getTime() + days * 86_400_000;
-  const points = (await listPoints(user.id)).filter((p) => !p.sealedForLife && (p.nextDueAt === null || new Date(p.nextDueAt).getTime() <= until));
+  const points = await listPointsDueBy(user.id, new Date(until), now);
   const groups = new Map<string, typeof points>();
   for (const p of points) groups.set(`${p.site} — ${p.area}`, [...(groups.get(`${p.site} — ${p.area}`) ?? []), p]);
 

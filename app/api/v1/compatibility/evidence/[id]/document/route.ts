@@ -8,8 +8,7 @@ export const dynamic = "force-dynamic";
 
 /** The report or letter behind one evidence record, as an attachment. */
 export const GET = apiRoute<{ id: string }>({ action: "catalogue.read" }, async ({ params }) => {
-  const id = parseId(params.id);
-  const evidence = (await listEvidence()).find((e) => e.id === id);
+  const [evidence] = await listEvidence({ id: parseId(params.id) });
   if (!evidence?.documentId) throw new NotFoundError("This evidence has no document.");
   return documentDownload(evidence.documentId);
 });
