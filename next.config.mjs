@@ -3,6 +3,8 @@ const nextConfig = {
   // Sequelize and the database drivers load dialects dynamically; bundling them breaks the build.
   serverExternalPackages: ["sequelize", "mariadb", "mysql2", "@node-rs/argon2", "nodemailer"],
   poweredByHeader: false,
+  // Forms that carry a delivery note (PDF, at most 10 MB, checked again on the server) post through server actions.
+  experimental: { serverActions: { bodySizeLimit: "11mb" } },
   reactStrictMode: true,
   // A fixed build id keeps two instances built from the same commit interchangeable behind a balancer.
   // Static files get the same baseline headers as pages (the proxy adds the CSP to everything else).

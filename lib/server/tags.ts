@@ -22,3 +22,22 @@ export function tagQrSvg(tag: string): Promise<string> {
 export function tagQrPng(tag: string, width = 480): Promise<Buffer> {
   return QRCode.toBuffer(tagUrl(tag), { type: "png", errorCorrectionLevel: "Q", margin: 2, width });
 }
+
+/** The URL a container label's QR code carries: /c/<label code>, which opens the lot. */
+export function containerUrl(code: string): string {
+  return new URL(`/c/${code}`, getEnv().APP_URL).toString();
+}
+
+export function parseLabelParam(raw: string | undefined): string {
+  const code = raw ? normaliseTagCode(raw) : null;
+  if (!code) throw new NotFoundError("Not a container label code.");
+  return code;
+}
+
+export function containerQrSvg(code: string): Promise<string> {
+  return QRCode.toString(containerUrl(code), { type: "svg", errorCorrectionLevel: "Q", margin: 2 });
+}
+
+export function containerQrPng(code: string, width = 480): Promise<Buffer> {
+  return QRCode.toBuffer(containerUrl(code), { type: "png", errorCorrectionLevel: "Q", margin: 2, width });
+}

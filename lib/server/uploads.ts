@@ -28,6 +28,14 @@ export function safeDisplayName(name: string): string {
  * under a generated name outside public/, and records it. Throws 413 / 415 / 400 before anything is written.
  */
 export async function storePdf(file: unknown, field: string, userId: string | null, transaction?: Transaction): Promise<number> {
+  return (await storePdfFile(file, field, userId, transaction)).id;
+}
+
+/**
+ * As storePdf, also giving the file's path, so a caller whose transaction later rolls back can remove the file
+ * with `removeStoredFile` (the row goes with the transaction).
+ */
+export async function storePdfFile(file: unknown, field: string, userId: string | null, transaction?: Transaction): Promise<{ id: number; path: string }> {
   const { StoredDocument } = boundModels();
   if (!(file instanceof File) || file.size === 0) throw new ValidationError({ [field]: ["Choose a PDF file."] });
   if (file.size > PDF_LIMIT_BYTES) throw new PayloadTooLargeError(PDF_LIMIT_BYTES);
@@ -55,11 +63,15 @@ export async function storePdf(file: unknown, field: string, userId: string | nu
       },
       { transaction },
     );
-    return doc.id;
+    return { id: doc.id, path: target };
   } catch (error) {
     await rm(target, { force: true });
     throw error;
   }
+}
+
+export async function removeStoredFile(path: string): Promise<void> {
+  await rm(path, { force: true });
 }
 
 /** Removes a stored file whose database row was rolled back. */

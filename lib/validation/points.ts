@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { labelCodeSchema } from "./stock";
 import { optionalNumber, optionalText } from "./fields";
 
 export const serviceSchema = z.object({
@@ -11,6 +12,10 @@ export const serviceSchema = z.object({
   purgeSeen: z.boolean().optional(),
   noise: z.boolean().optional(),
   housingTemperatureC: optionalNumber("Housing temperature (°C)", -60, 400),
+  /** The container label scanned at the point: the lot is recorded with the service. */
+  containerLabel: labelCodeSchema.optional(),
+  /** Book one container of that lot out of the store against this point. */
+  takeContainer: z.boolean().optional(),
 });
 export type ServiceBody = z.infer<typeof serviceSchema>;
 

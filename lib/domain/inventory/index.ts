@@ -30,3 +30,5 @@ export { pickLots } from "./pick-lots";
 export { lotsAtRisk } from "./lots-at-risk";
 export { addMonthsUtc } from "./add-months-utc";
 export { expiryDate } from "./expiry-date";
+export { isoWeek } from "./iso-week";
+export type { IsoWeek } from "./iso-week";

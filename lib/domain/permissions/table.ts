@@ -18,6 +18,7 @@ export const PERMISSION_TABLE: Readonly<Record<Action, readonly Role[]>> = {
   "stock.receive": ["lead", "clerk"],
   "stock.issue": ["lead", "clerk", "technician"],
   "stock.count": ["lead", "clerk"],
+  "stock.move": ["lead", "clerk"],
   "stock.reorder.manage": ["lead"],
   "incidents.read": ["admin", "lead", "auditor"],
   "incidents.report": ["lead"],

@@ -24,6 +24,7 @@ export const ACTIONS = [
   "stock.receive",
   "stock.issue",
   "stock.count",
+  "stock.move",
   "stock.reorder.manage",
   "incidents.read",
   "incidents.report",

@@ -22,3 +22,17 @@ export function tagCodeFromScan(text: string): string | null {
   const match = text.trim().match(/\/p\/([0-9A-Za-z-]{8,10})\/?$/);
   return normaliseTagCode(match ? match[1]! : text.trim());
 }
+
+/** The label code inside a scanned container label: the bare code or our container URL ending in /c/<code>. */
+export function containerCodeFromScan(text: string): string | null {
+  const match = text.trim().match(/\/c\/([0-9A-Za-z-]{8,10})\/?$/);
+  return normaliseTagCode(match ? match[1]! : text.trim());
+}
+
+/** What a scanned code is: our lube-point tag URL, our container label URL, or a bare 8-character code. */
+export function scannedKind(text: string): "point" | "container" | "bare" | null {
+  const t = text.trim();
+  if (/\/p\/[0-9A-Za-z-]{8,10}\/?$/.test(t)) return normaliseTagCode(t.slice(t.lastIndexOf("/p/") + 3).replace(/\/$/, "")) ? "point" : null;
+  if (/\/c\/[0-9A-Za-z-]{8,10}\/?$/.test(t)) return normaliseTagCode(t.slice(t.lastIndexOf("/c/") + 3).replace(/\/$/, "")) ? "container" : null;
+  return normaliseTagCode(t) ? "bare" : null;
+}

@@ -60,7 +60,7 @@ export default async function PointPage({ params }: { params: Promise<{ tag: str
           ) : undefined
         }
       />
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="space-y-6">
           {canRecord ? (
             <Card>

@@ -4,4 +4,6 @@ import { listStock } from "@/lib/server/queries/stock";
 export const dynamic = "force-dynamic";
 
 /** Containers on hand per grease, pack and location, with the reorder point (containers of that pack) and low flag. */
-export const GET = apiRoute({ action: "stock.read" }, async ({ user }) => Response.json({ items: await listStock(user.id) }));
+export const GET = apiRoute({ action: "stock.read" }, async ({ user }) =>
+  Response.json({ items: await listStock(user.id) }),
+);

@@ -21,6 +21,7 @@ const EXPECTED: Record<Action, string> = {
   "stock.receive": "LC",
   "stock.issue": "LCT",
   "stock.count": "LC",
+  "stock.move": "LC",
   "stock.reorder.manage": "L",
   "incidents.read": "ALU",
   "incidents.report": "L",

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { normaliseTagCode, quantityFlag, tagCodeFrom, tagCodeFromScan } from "@/lib/domain/service";
+import { containerCodeFromScan, normaliseTagCode, quantityFlag, scannedKind, tagCodeFrom, tagCodeFromScan } from "@/lib/domain/service";
 
 describe("quantityFlag (±30 %, common practice, no source)", () => {
   it.each([
@@ -35,6 +35,19 @@ describe("tag codes (Crockford base 32)", () => {
     ["https://evil.example/other", null],
   ])("reads the code from the scan %j", (text, code) => {
     expect(tagCodeFromScan(text)).toBe(code);
+  });
+  // Our own formats (no source): a point tag carries /p/<code>, a container label /c/<code>.
+  it.each([
+    ["http://127.0.0.1:3000/c/K7QX3MPA", "K7QX3MPA", null, "container"],
+    ["https://lube.example.com/c/k7qx3mpa/", "K7QX3MPA", null, "container"],
+    ["http://127.0.0.1:3000/p/K7QX3MPA", null, "K7QX3MPA", "point"],
+    ["K7QX3MPA", "K7QX3MPA", "K7QX3MPA", "bare"],
+    ["https://evil.example/c/NOT-A-CODE-AT-ALL", null, null, null],
+    ["", null, null, null],
+  ] as const)("tells a container label from a point tag in %j", (text, container, point, kind) => {
+    expect(containerCodeFromScan(text)).toBe(container);
+    expect(tagCodeFromScan(text)).toBe(point);
+    expect(scannedKind(text)).toBe(kind);
   });
 });
 

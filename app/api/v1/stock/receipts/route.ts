@@ -5,7 +5,14 @@ import { receiptSchema } from "@/lib/validation/stock";
 
 export const dynamic = "force-dynamic";
 
-export const POST = apiRoute({ action: "stock.receive", body: receiptSchema }, async ({ request, body, user }) => {
-  const answer = await receiveStock(body, user.id, parseIdempotencyKey(request.headers.get("idempotency-key")));
-  return Response.json(answer.body, { status: answer.status });
-});
+export const POST = apiRoute(
+  { action: "stock.receive", body: receiptSchema },
+  async ({ request, body, user }) => {
+    const answer = await receiveStock(
+      body,
+      user.id,
+      parseIdempotencyKey(request.headers.get("idempotency-key")),
+    );
+    return Response.json(answer.body, { status: answer.status });
+  },
+);
