@@ -31,9 +31,13 @@ process.on("SIGTERM", () => shutdown(0));
 function loadSecrets() {
   mkdirSync(dataDir, { recursive: true });
   const file = path.join(dataDir, "secrets.json");
-  if (existsSync(file)) return JSON.parse(readFileSync(file, "utf8"));
-  const secrets = { databasePassword: newSecret() };
-  writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  const secrets = existsSync(file) ? JSON.parse(readFileSync(file, "utf8")) : {};
+  // A data folder from before the owner account gets its password added on the next start.
+  if (!secrets.databasePassword || !secrets.ownerPassword) {
+    secrets.databasePassword ??= newSecret();
+    secrets.ownerPassword ??= newSecret();
+    writeFileSync(file, JSON.stringify(secrets, null, 2), { mode: 0o600 });
+  }
   return secrets;
 }
 
@@ -41,7 +45,9 @@ try {
   await ensureNodeModules();
   await ensureDebianPackage({ binary: "mariadbd", pkg: "mariadb-server", why: "the database" });
   if (await portInUse(appPort)) {
-    throw new Error(`port ${appPort} is already in use — is another \`npm start\` running? Set PORT to use another.`);
+    throw new Error(
+      `port ${appPort} is already in use — is another \`npm start\` running? Set PORT to use another.`,
+    );
   }
   const secrets = loadSecrets();
   const { db, env } = await startDatabase({
@@ -49,6 +55,7 @@ try {
     port: dbPort,
     database: process.env.DATABASE_NAME ?? "greaseledger",
     password: process.env.DATABASE_PASSWORD ?? secrets.databasePassword,
+    ownerPassword: process.env.DATABASE_OWNER_PASSWORD ?? secrets.ownerPassword,
     reuse: true,
     seed: true,
   });
@@ -66,7 +73,13 @@ try {
   const app = await startApp({
     port: appPort,
     dev,
-    env: { ...env, APP_URL: appUrl, SMTP_HOST: "127.0.0.1", SMTP_PORT: String(smtpPort), MAIL_INBOX_URL: inboxUrl },
+    env: {
+      ...env,
+      APP_URL: appUrl,
+      SMTP_HOST: "127.0.0.1",
+      SMTP_PORT: String(smtpPort),
+      MAIL_INBOX_URL: inboxUrl,
+    },
   });
   stoppers.push(app.stop);
   app.child.once("exit", (code) => {

@@ -1,5 +1,6 @@
 import "server-only";
 import { QueryTypes } from "sequelize";
+import { recordAudit } from "./audit";
 import { getSequelize } from "./db";
 import { log } from "./log";
 import { hashPassword, needsRehash, verifyDummy, verifyPassword } from "./passwords";
@@ -52,6 +53,7 @@ export async function signIn(input: {
   if (!user || !valid) {
     await recordThrottleFailure(keys, now);
     log("warn", "sign_in_failed", { email, address: input.address, knownUser: Boolean(user) });
+    await recordAudit({ event: "session.sign_in_failed", actorId: user?.id ?? null, payload: { email, address: input.address } }, now);
     return { ok: false, reason: "invalid_credentials" };
   }
 
@@ -63,5 +65,6 @@ export async function signIn(input: {
   }
   const token = await createSession(user.id, { userAgent: input.userAgent, now });
   log("info", "sign_in_ok", { userId: user.id, address: input.address });
+  await recordAudit({ event: "session.signed_in", actorId: user.id, subjectType: "user", subjectId: user.id, payload: { address: input.address } }, now);
   return { ok: true, token, user: { id: user.id, email: user.email, name: user.name, role: user.role } };
 }

@@ -2,6 +2,9 @@ import * as m0001 from "./0001-foundation";
 import * as m0002 from "./0002-catalogue";
 import * as m0003 from "./0003-points";
 import * as m0004 from "./0004-stock";
+import * as m0005 from "./0005-stock-work";
+import * as m0006 from "./0006-audit";
+import * as m0007 from "./0007-incident-work";
 
 /**
  * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
@@ -13,4 +16,7 @@ export const MIGRATIONS = [
   { name: "0002-catalogue.ts", ...m0002 },
   { name: "0003-points.ts", ...m0003 },
   { name: "0004-stock.ts", ...m0004 },
+  { name: "0005-stock-work.ts", ...m0005 },
+  { name: "0006-audit.ts", ...m0006 },
+  { name: "0007-incident-work.ts", ...m0007 },
 ];

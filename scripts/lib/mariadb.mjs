@@ -17,16 +17,29 @@ const userArgs = () => (isRoot() ? ["--user=root"] : []);
 export function mariadbClient(socket) {
   const client = which("mariadb") ?? which("mysql");
   return (sql, { database, quiet = true } = {}) =>
-    run(client, ["--no-defaults", `--socket=${socket}`, "-uroot", "--batch", "--skip-column-names", ...(database ? [database] : [])], {
-      input: sql,
-      quiet,
-    });
+    run(
+      client,
+      [
+        "--no-defaults",
+        `--socket=${socket}`,
+        "-uroot",
+        "--batch",
+        "--skip-column-names",
+        ...(database ? [database] : []),
+      ],
+      {
+        input: sql,
+        quiet,
+      },
+    );
 }
 
 async function ping(socket) {
   const admin = which("mariadb-admin") ?? which("mysqladmin");
   try {
-    await run(admin, ["--no-defaults", `--socket=${socket}`, "-uroot", "--connect-timeout=2", "ping"], { quiet: true });
+    await run(admin, ["--no-defaults", `--socket=${socket}`, "-uroot", "--connect-timeout=2", "ping"], {
+      quiet: true,
+    });
     return true;
   } catch {
     return false;
@@ -52,7 +65,13 @@ export async function startMariadb({ baseDir, port, reuse = true, log = () => {}
     log("creating a new MariaDB data folder…");
     await run(
       installDb,
-      ["--no-defaults", `--datadir=${dataDir}`, "--auth-root-authentication-method=normal", "--skip-test-db", ...userArgs()],
+      [
+        "--no-defaults",
+        `--datadir=${dataDir}`,
+        "--auth-root-authentication-method=normal",
+        "--skip-test-db",
+        ...userArgs(),
+      ],
       { quiet: true },
     );
   }
@@ -83,10 +102,13 @@ export async function startMariadb({ baseDir, port, reuse = true, log = () => {}
   let exited = false;
   child.once("exit", () => (exited = true));
   try {
-    await waitFor(async () => {
-      if (exited) throw new Error("stopped");
-      return ping(socket);
-    }, { timeoutMs: 60_000, intervalMs: 200, what: "MariaDB to accept connections" });
+    await waitFor(
+      async () => {
+        if (exited) throw new Error("stopped");
+        return ping(socket);
+      },
+      { timeoutMs: 60_000, intervalMs: 200, what: "MariaDB to accept connections" },
+    );
   } catch (error) {
     const tail = existsSync(errorLog) ? readFileSync(errorLog, "utf8").split("\n").slice(-15).join("\n") : "";
     throw new Error(`MariaDB did not start on port ${port}: ${error.message}\n${tail}`);
@@ -96,7 +118,9 @@ export async function startMariadb({ baseDir, port, reuse = true, log = () => {}
   const stop = async () => {
     if (child.exitCode !== null) return;
     const admin = which("mariadb-admin") ?? which("mysqladmin");
-    await run(admin, ["--no-defaults", `--socket=${socket}`, "-uroot", "shutdown"], { quiet: true }).catch(() => child.kill("SIGTERM"));
+    await run(admin, ["--no-defaults", `--socket=${socket}`, "-uroot", "shutdown"], { quiet: true }).catch(
+      () => child.kill("SIGTERM"),
+    );
     await new Promise((resolve) => {
       if (child.exitCode !== null) return resolve();
       const timer = setTimeout(() => {
@@ -118,15 +142,44 @@ const ident = (name) => {
 };
 const literal = (value) => `'${String(value).replace(/\\/g, "\\\\").replace(/'/g, "\\'")}'`;
 
-/** Creates the database and the app's own user (reachable from 127.0.0.1 only), idempotently. */
-export async function provisionDatabase({ socket, database, user, password }) {
+/**
+ * Creates the database and two accounts reachable from 127.0.0.1 only: the owner, which migrates and seeds, and
+ * the app's own account, which gets its rights table by table from `grantAppPrivileges` after each migration.
+ */
+export async function provisionDatabase({ socket, database, user, password, owner, ownerPassword }) {
   const sql = mariadbClient(socket);
   await sql(`
     CREATE DATABASE IF NOT EXISTS ${ident(database)} CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;
+    CREATE USER IF NOT EXISTS ${literal(owner)}@'127.0.0.1' IDENTIFIED BY ${literal(ownerPassword)};
+    ALTER USER ${literal(owner)}@'127.0.0.1' IDENTIFIED BY ${literal(ownerPassword)};
+    GRANT ALL PRIVILEGES ON ${ident(database)}.* TO ${literal(owner)}@'127.0.0.1';
     CREATE USER IF NOT EXISTS ${literal(user)}@'127.0.0.1' IDENTIFIED BY ${literal(password)};
     ALTER USER ${literal(user)}@'127.0.0.1' IDENTIFIED BY ${literal(password)};
-    GRANT SELECT, INSERT, UPDATE, DELETE, CREATE, ALTER, DROP, INDEX, REFERENCES, CREATE VIEW, TRIGGER,
-      LOCK TABLES, EXECUTE, CREATE ROUTINE, ALTER ROUTINE ON ${ident(database)}.* TO ${literal(user)}@'127.0.0.1';
     FLUSH PRIVILEGES;
   `);
+}
+
+/** Tables the app may read and append to, never change: the audit trail (issue: tamper-evident log). */
+export const APPEND_ONLY_TABLES = ["audit_log"];
+
+/**
+ * Gives the app's account exactly what it needs, table by table: read and write everywhere, but only read and
+ * insert on the append-only tables, and no schema changes at all (the owner migrates). Run after migrating.
+ */
+export async function grantAppPrivileges({ socket, database, user }) {
+  const sql = mariadbClient(socket);
+  const tables = (
+    await sql(
+      `SELECT table_name FROM information_schema.tables WHERE table_schema = ${literal(database)} AND table_type = 'BASE TABLE';`,
+    )
+  )
+    .split("\n")
+    .map((t) => t.trim())
+    .filter(Boolean);
+  const account = `${literal(user)}@'127.0.0.1'`;
+  const grants = tables.map((table) => {
+    const rights = APPEND_ONLY_TABLES.includes(table) ? "SELECT, INSERT" : "SELECT, INSERT, UPDATE, DELETE";
+    return `GRANT ${rights} ON ${ident(database)}.${ident(table)} TO ${account};`;
+  });
+  await sql(`REVOKE ALL PRIVILEGES, GRANT OPTION FROM ${account};\n${grants.join("\n")}\nFLUSH PRIVILEGES;`);
 }

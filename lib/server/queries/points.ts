@@ -3,6 +3,7 @@ import { QueryTypes, type Transaction } from "sequelize";
 import { evaluateMix, type MixResult } from "@/lib/domain/compatibility";
 import { dueState, nextDueAt, type DueState } from "@/lib/domain/relubrication";
 import { quantityFlag, type QuantityFlag } from "@/lib/domain/service";
+import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { idempotent, type StoredAnswer } from "../idempotency";
@@ -11,6 +12,7 @@ import { enqueueMail } from "../mail/outbox";
 import { getEnv } from "@/lib/env";
 import { getSiteSettings, listEvidence, profileOf } from "./compatibility";
 import { getGrease } from "./greases";
+import { containerForService } from "./stock";
 import { siteLeadEmails, userSiteIds } from "./users";
 
 export interface GreaseRefDto {
@@ -229,6 +231,8 @@ export interface ServiceInput {
   purgeSeen?: boolean;
   noise?: boolean;
   housingTemperatureC?: number;
+  containerLabel?: string;
+  takeContainer?: boolean;
 }
 
 /**
@@ -314,6 +318,10 @@ export async function recordService(tag: string, userId: string, input: ServiceI
           transaction,
         },
       );
+      await sequelize.query("INSERT INTO incident_event (incident_id, at, actor_id, kind, note) VALUES (?, ?, ?, 'opened', ?)", {
+        replacements: [incidentId, now, userId, "Opened by the compatibility check at the lube point; the service was refused."],
+        transaction,
+      });
       const offered = await getGrease(input.greaseId, transaction);
       const leads = await siteLeadEmails(point.siteId, transaction);
       if (leads.length) {
@@ -336,6 +344,18 @@ export async function recordService(tag: string, userId: string, input: ServiceI
         );
       }
       log("warn", "service_refused", { pointId: point.id, greaseId: input.greaseId, verdict: check.verdict, incidentId, by: userId });
+      await appendAudit(
+        {
+          event: "service.refused",
+          actorId: userId,
+          siteId: point.siteId,
+          subjectType: "point",
+          subjectId: point.tag,
+          payload: { greaseInPointId: point.currentGrease?.id ?? null, greaseOfferedId: input.greaseId, verdict: check.verdict, incidentId: Number(incidentId) },
+        },
+        transaction,
+        now,
+      );
       return {
         status: 409,
         body: {
@@ -347,6 +367,9 @@ export async function recordService(tag: string, userId: string, input: ServiceI
       };
     }
 
+    const container = input.containerLabel
+      ? await containerForService({ labelCode: input.containerLabel, siteId: point.siteId, greaseId: input.greaseId, pointId: point.id, take: input.takeContainer ?? false }, userId, idempotencyKey, now, transaction)
+      : null;
     const flag: QuantityFlag | null = quantityFlag(grams, point.quantityGrams);
     let interval = point.intervalHours;
     if (check.changeoverId) {
@@ -365,11 +388,11 @@ export async function recordService(tag: string, userId: string, input: ServiceI
     }
     const due = interval ? nextDueAt({ lastServicedAt: now, intervalHours: interval, runningHoursPerDay: point.runningHoursPerDay }) : null;
     const [serviceId] = await sequelize.query(
-      `INSERT INTO service_record (site_id, point_id, grease_id, grams, strokes, gun_id, planned_grams, quantity_flag, back_pressure, purge_seen, noise,
-         housing_temperature_c, notes, changeover_id, performed_by, performed_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+      `INSERT INTO service_record (site_id, point_id, grease_id, lot_id, grams, strokes, gun_id, planned_grams, quantity_flag, back_pressure, purge_seen, noise,
+         housing_temperature_c, notes, changeover_id, performed_by, performed_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
       {
         replacements: [
-          point.siteId, point.id, input.greaseId, grams, input.strokes ?? null, input.gunId ?? null, point.quantityGrams, flag,
+          point.siteId, point.id, input.greaseId, container?.lotId ?? null, grams, input.strokes ?? null, input.gunId ?? null, point.quantityGrams, flag,
           input.backPressure ?? false, input.purgeSeen ?? false, input.noise ?? false, input.housingTemperatureC ?? null, input.notes ?? null,
           check.changeoverId, userId, now,
         ],
@@ -382,6 +405,18 @@ export async function recordService(tag: string, userId: string, input: ServiceI
       { replacements: [now, due, input.greaseId, now, point.id], transaction },
     );
     log("info", "service_recorded", { pointId: point.id, serviceId, grams, flag, by: userId });
+    await appendAudit(
+      {
+        event: "service.recorded",
+        actorId: userId,
+        siteId: point.siteId,
+        subjectType: "point",
+        subjectId: point.tag,
+        payload: { serviceId: Number(serviceId), greaseId: input.greaseId, grams, quantityFlag: flag, changeoverId: check.changeoverId, lot: container ? { label: input.containerLabel, bookedOut: container.took } : null },
+      },
+      transaction,
+      now,
+    );
     return {
       status: 201,
       body: {
@@ -395,6 +430,7 @@ export async function recordService(tag: string, userId: string, input: ServiceI
           plannedGrams: point.quantityGrams,
           performedAt: now.toISOString(),
           nextDueAt: due ? due.toISOString() : null,
+          lot: container ? { lotNumber: container.lotNumber, labelCode: input.containerLabel, bookedOut: container.took } : null,
         },
         warnings: [
           ...(flag === "over" ? [`${grams} g is well above the planned ${point.quantityGrams} g: over-greasing heats the bearing and can push seals out.`] : []),

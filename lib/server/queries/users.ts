@@ -3,6 +3,7 @@ import { createHash, randomBytes, randomUUID } from "node:crypto";
 import { QueryTypes, type Transaction } from "sequelize";
 import { getEnv } from "@/lib/env";
 import { ROLE_LABELS, type Role } from "@/lib/domain/permissions";
+import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
@@ -140,6 +141,7 @@ export async function inviteUser(
         transaction,
         now,
       );
+      await appendAudit({ event: "user.invited", actorId: invitedBy.id, subjectType: "user", subjectId: userId, payload: { email: input.email, role: input.role, siteIds: [...new Set(input.siteIds)] } }, transaction, now);
     });
   } catch (error) {
     if ((error as { name?: string }).name === "SequelizeUniqueConstraintError" || (error as { original?: { errno?: number } }).original?.errno === 1062) {
@@ -191,6 +193,7 @@ export async function acceptInvitation(token: string, password: string, now = ne
       transaction,
     });
     log("info", "invitation_accepted", { userId: row.user_id });
+    await appendAudit({ event: "user.activated", actorId: row.user_id, subjectType: "user", subjectId: row.user_id, payload: {} }, transaction, now);
     return { email: row.email };
   });
 }
@@ -209,8 +212,9 @@ export async function changeRole(userId: string, role: Role, by: { id: string },
   const user = await requireUser(userId);
   if (user.id === by.id) throw new ConflictError("own_account", "You cannot change your own role.");
   if (user.role === role) return;
-  await getSequelize().query("UPDATE app_user SET role = ?, updated_at = ? WHERE id = ?", {
-    replacements: [role, now, userId],
+  await getSequelize().transaction(async (transaction) => {
+    await getSequelize().query("UPDATE app_user SET role = ?, updated_at = ? WHERE id = ?", { replacements: [role, now, userId], transaction });
+    await appendAudit({ event: "user.role_changed", actorId: by.id, subjectType: "user", subjectId: userId, payload: { from: user.role, to: role } }, transaction, now);
   });
   await invalidateUserSessions(userId);
   log("info", "role_changed", { userId, from: user.role, to: role, by: by.id });
@@ -228,6 +232,7 @@ export async function setSiteAccess(userId: string, siteIds: number[], by: { id:
         transaction,
       });
     }
+    await appendAudit({ event: "user.sites_changed", actorId: by.id, subjectType: "user", subjectId: userId, payload: { siteIds: [...new Set(siteIds)] } }, transaction, now);
   });
   log("info", "site_access_changed", { userId, siteIds, by: by.id });
 }
@@ -236,17 +241,18 @@ export async function setSiteAccess(userId: string, siteIds: number[], by: { id:
 export async function setUserDisabled(userId: string, disabled: boolean, by: { id: string }, now = new Date()): Promise<void> {
   const user = await requireUser(userId);
   if (user.id === by.id) throw new ConflictError("own_account", "You cannot disable your own account.");
-  if (disabled) {
-    await getSequelize().query("UPDATE app_user SET status = 'disabled', disabled_at = ?, updated_at = ? WHERE id = ?", {
-      replacements: [now, now, userId],
-    });
-    await invalidateUserSessions(userId);
-  } else {
-    await getSequelize().query(
-      "UPDATE app_user SET status = IF(password_hash IS NULL, 'invited', 'active'), disabled_at = NULL, updated_at = ? WHERE id = ?",
-      { replacements: [now, userId] },
-    );
-  }
+  await getSequelize().transaction(async (transaction) => {
+    if (disabled) {
+      await getSequelize().query("UPDATE app_user SET status = 'disabled', disabled_at = ?, updated_at = ? WHERE id = ?", { replacements: [now, now, userId], transaction });
+    } else {
+      await getSequelize().query("UPDATE app_user SET status = IF(password_hash IS NULL, 'invited', 'active'), disabled_at = NULL, updated_at = ? WHERE id = ?", {
+        replacements: [now, userId],
+        transaction,
+      });
+    }
+    await appendAudit({ event: disabled ? "user.disabled" : "user.enabled", actorId: by.id, subjectType: "user", subjectId: userId, payload: {} }, transaction, now);
+  });
+  if (disabled) await invalidateUserSessions(userId);
   log("info", disabled ? "user_disabled" : "user_enabled", { userId, by: by.id });
 }
 
@@ -258,10 +264,16 @@ export async function setUnitSystem(userId: string, unitSystem: "metric" | "impe
 
 /** The e-mail addresses of a site's active lubrication leads (for reorder and incident mail). */
 export async function siteLeadEmails(siteId: number, transaction?: Transaction): Promise<string[]> {
+  return siteRoleEmails(siteId, ["lead"], transaction);
+}
+
+/** The e-mail addresses of a site's active users with one of these roles, each once, sorted. */
+export async function siteRoleEmails(siteId: number, roles: readonly Role[], transaction?: Transaction): Promise<string[]> {
+  if (!roles.length) return [];
   const rows = await getSequelize().query<{ email: string }>(
-    `SELECT u.email FROM app_user u JOIN user_site_access a ON a.user_id = u.id
-     WHERE a.site_id = ? AND u.role = 'lead' AND u.status = 'active' ORDER BY u.email`,
-    { replacements: [siteId], type: QueryTypes.SELECT, transaction },
+    `SELECT DISTINCT u.email FROM app_user u JOIN user_site_access a ON a.user_id = u.id
+     WHERE a.site_id = :siteId AND u.role IN (:roles) AND u.status = 'active' ORDER BY u.email`,
+    { replacements: { siteId, roles: [...roles] }, type: QueryTypes.SELECT, transaction },
   );
   return rows.map((r) => r.email);
 }
