@@ -3,6 +3,7 @@ import { hash } from "@node-rs/argon2";
 import { QueryTypes, type Sequelize } from "sequelize";
 import type { Role } from "@/lib/domain/permissions";
 import { seedCatalogue } from "./catalogue";
+import { seedIncidents } from "./incidents";
 import { seedPoints } from "./points";
 import { seedStock } from "./stock";
 
@@ -63,5 +64,6 @@ export async function seedDemo(sequelize: Sequelize, now = new Date()): Promise<
     await seedCatalogue(sequelize, transaction, now, leadId);
     await seedPoints(sequelize, transaction, now, { techId: techId!, leadId: leadId! });
     await seedStock(sequelize, transaction, now, { clerkId: clerkId!, leadId: leadId! });
+    await seedIncidents(sequelize, transaction, now, { techId: techId!, leadId: leadId! });
   });
 }
