@@ -1,7 +1,7 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize and the database drivers load dialects dynamically; bundling them breaks the build.
-  serverExternalPackages: ["sequelize", "mariadb", "mysql2", "@node-rs/argon2", "nodemailer"],
+  serverExternalPackages: ["sequelize", "mariadb", "mysql2", "@node-rs/argon2", "nodemailer", "pdfkit"],
   poweredByHeader: false,
   // Forms that carry a delivery note (PDF, at most 10 MB, checked again on the server) post through server actions.
   experimental: { serverActions: { bodySizeLimit: "11mb" } },

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { VerdictBadge } from "@/components/compatibility/verdict-badge";
+import { ExportButtons } from "@/components/incidents/export-buttons";
 import { IncidentStateBadge, KIND_LABEL } from "@/components/incidents/labels";
 import { Forbidden } from "@/components/shell/forbidden";
 import { buttonClasses } from "@/components/ui/button";
@@ -118,6 +119,17 @@ export default async function IncidentsPage({
             Clear
           </Link>
         </form>
+        {can(user.role, "incidents.export") ? (
+          <div className="mt-4">
+            <ExportButtons
+              query={new URLSearchParams(
+                Object.entries(filter).flatMap(([k, v]) =>
+                  v === undefined || v === "" ? [] : [[k, String(v)]],
+                ),
+              ).toString()}
+            />
+          </div>
+        ) : null}
         <p className="mt-3 text-sm" data-testid="incident-counts">
           {counts.total} incident(s): {counts.byState.open} open, {counts.byState.investigating}{" "}
           investigating, {counts.byState.closed} closed · {counts.byKind.refused_mix} refused at the point,{" "}

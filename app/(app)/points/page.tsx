@@ -4,6 +4,7 @@ import { PointTable } from "@/components/points/point-table";
 import { Forbidden } from "@/components/shell/forbidden";
 import { buttonClasses } from "@/components/ui/button";
 import { Card, PageHeader } from "@/components/ui/card";
+import { can } from "@/lib/domain/permissions";
 import { pageUserCan } from "@/lib/server/auth";
 import { listPoints } from "@/lib/server/queries/points";
 
@@ -13,7 +14,10 @@ export default async function PointsPage() {
   const { user, allowed } = await pageUserCan("points.read");
   if (!allowed) return <Forbidden what="Lube points" />;
   const points = await listPoints(user.id);
-  const counts = { overdue: points.filter((p) => p.due === "overdue").length, due: points.filter((p) => p.due === "due").length };
+  const counts = {
+    overdue: points.filter((p) => p.due === "overdue").length,
+    due: points.filter((p) => p.due === "due").length,
+  };
   return (
     <>
       <PageHeader
@@ -24,9 +28,11 @@ export default async function PointsPage() {
             <Link href="/points/plant" className={buttonClasses("secondary")}>
               Plant tree
             </Link>
-            <Link href="/points/import" className={buttonClasses("secondary")}>
-              Import CSV
-            </Link>
+            {can(user.role, "points.write") ? (
+              <Link href="/points/import" className={buttonClasses("secondary")}>
+                Import CSV
+              </Link>
+            ) : null}
             <Link href="/points/route" className={buttonClasses("secondary")}>
               Route sheet
             </Link>

@@ -392,3 +392,11 @@ export async function addIncidentNote(input: IncidentNote, userId: string, now =
     );
   });
 }
+
+/** The names of the caller's sites, for report headings. */
+export async function userSiteNames(userId: string): Promise<string[]> {
+  const sites = await userSiteIds(userId);
+  if (!sites.length) return [];
+  const rows = await getSequelize().query<{ name: string }>("SELECT name FROM site WHERE id IN (:sites) ORDER BY name", { replacements: { sites }, type: QueryTypes.SELECT });
+  return rows.map((r) => r.name);
+}
