@@ -14,6 +14,7 @@ import {
   type PairEvidence,
 } from "@/lib/domain/compatibility";
 import type { EvaluateInput, EvidenceInput, GreaseRef } from "@/lib/validation/compatibility";
+import { appendAudit } from "../audit";
 import { boundModels, getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
@@ -26,10 +27,14 @@ export interface SiteCompatibilitySettings extends CompatibilitySettings, Mixtur
 }
 
 /** A site's settings, or the defaults when the lead has not changed them (version 0). */
-export async function getSiteSettings(siteId: number, transaction?: Transaction): Promise<SiteCompatibilitySettings> {
+export async function getSiteSettings(
+  siteId: number,
+  transaction?: Transaction,
+): Promise<SiteCompatibilitySettings> {
   const { CompatibilitySettingsRow } = boundModels();
   const row = await CompatibilitySettingsRow.findByPk(siteId, { transaction });
-  if (!row) return { siteId, version: 0, ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
+  if (!row)
+    return { siteId, version: 0, ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
   return {
     siteId,
     version: row.version,
@@ -43,7 +48,10 @@ export async function getSiteSettings(siteId: number, transaction?: Transaction)
 }
 
 /** The settings that apply for a user: the requested site if they may see it, else their first site, else defaults. */
-export async function settingsForUser(userId: string, siteId?: number): Promise<SiteCompatibilitySettings | (CompatibilitySettings & MixtureTestSettings)> {
+export async function settingsForUser(
+  userId: string,
+  siteId?: number,
+): Promise<SiteCompatibilitySettings | (CompatibilitySettings & MixtureTestSettings)> {
   const sites = await userSiteIds(userId);
   if (siteId !== undefined && !sites.includes(siteId)) throw new NotFoundError("No such site among yours.");
   const chosen = siteId ?? sites.sort((a, b) => a - b)[0];
@@ -52,7 +60,16 @@ export async function settingsForUser(userId: string, siteId?: number): Promise<
 }
 
 export async function saveSiteSettings(
-  input: { siteId: number; enabledCharts: string[]; viscosityRatioLimit: number; nlgiStepLimit: number; droppingPointAllowanceC: number; workedPenetrationAllowance: number; storageChangeAllowance: number; version: number },
+  input: {
+    siteId: number;
+    enabledCharts: string[];
+    viscosityRatioLimit: number;
+    nlgiStepLimit: number;
+    droppingPointAllowanceC: number;
+    workedPenetrationAllowance: number;
+    storageChangeAllowance: number;
+    version: number;
+  },
   userId: string,
 ): Promise<void> {
   const known = new Set(CHARTS.map((c) => c.id));
@@ -60,14 +77,20 @@ export async function saveSiteSettings(
   if (unknown.length) throw new ValidationError({ enabledCharts: [`Unknown chart: ${unknown.join(", ")}.`] });
   const sequelize = getSequelize();
   await sequelize.transaction(async (transaction) => {
-    const [row] = await sequelize.query<{ version: number }>("SELECT version FROM compatibility_settings WHERE site_id = ? FOR UPDATE", {
-      replacements: [input.siteId],
-      type: QueryTypes.SELECT,
-      transaction,
-    });
+    const [row] = await sequelize.query<{ version: number }>(
+      "SELECT version FROM compatibility_settings WHERE site_id = ? FOR UPDATE",
+      {
+        replacements: [input.siteId],
+        type: QueryTypes.SELECT,
+        transaction,
+      },
+    );
     const current = row ? Number(row.version) : 0;
     if (current !== input.version) {
-      throw new ConflictError("stale_version", "Someone else changed these settings since you opened the page. Reload and apply your change again.");
+      throw new ConflictError(
+        "stale_version",
+        "Someone else changed these settings since you opened the page. Reload and apply your change again.",
+      );
     }
     const values = [
       input.enabledCharts.join(","),
@@ -93,8 +116,31 @@ export async function saveSiteSettings(
         { replacements: [...values, input.siteId], transaction },
       );
     }
+    await appendAudit(
+      {
+        event: "rules.settings_changed",
+        actorId: userId,
+        siteId: input.siteId,
+        subjectType: "compatibility_settings",
+        subjectId: input.siteId,
+        payload: {
+          version: current + 1,
+          enabledCharts: input.enabledCharts,
+          viscosityRatioLimit: input.viscosityRatioLimit,
+          nlgiStepLimit: input.nlgiStepLimit,
+          droppingPointAllowanceC: input.droppingPointAllowanceC,
+          workedPenetrationAllowance: input.workedPenetrationAllowance,
+          storageChangeAllowance: input.storageChangeAllowance,
+        },
+      },
+      transaction,
+    );
   });
-  log("info", "compatibility_settings_changed", { siteId: input.siteId, by: userId, enabledCharts: input.enabledCharts });
+  log("info", "compatibility_settings_changed", {
+    siteId: input.siteId,
+    by: userId,
+    enabledCharts: input.enabledCharts,
+  });
 }
 
 export interface EvidenceDto extends PairEvidence {
@@ -147,7 +193,10 @@ function evidenceDto(r: EvidenceRow): EvidenceDto {
 }
 
 /** Evidence records, newest first: one record by id, those of one pair, of one grease, or all. */
-export async function listEvidence(filter: { id?: number; greaseId?: number; pair?: [number, number] } = {}, transaction?: Transaction): Promise<EvidenceDto[]> {
+export async function listEvidence(
+  filter: { id?: number; greaseId?: number; pair?: [number, number] } = {},
+  transaction?: Transaction,
+): Promise<EvidenceDto[]> {
   const where: string[] = [];
   const replacements: number[] = [];
   if (filter.id) {
@@ -200,24 +249,40 @@ export async function evaluatePair(input: EvaluateInput, userId: string): Promis
     typeof a.productId === "number" && typeof b.productId === "number" && a.productId !== b.productId
       ? await listEvidence({ pair: [a.productId, b.productId] })
       : [];
-  return evaluateMix(a, b, { foodGradeRequired: input.point?.foodGradeRequired ?? false, evidence }, settings);
+  return evaluateMix(
+    a,
+    b,
+    { foodGradeRequired: input.point?.foodGradeRequired ?? false, evidence },
+    settings,
+  );
 }
 
 /** One grease against every other product in the catalogue, with the evidence on record. */
 export async function compatibilityWithAll(greaseId: number, userId: string) {
-  const [greases, evidence, settings] = await Promise.all([listGreases(), listEvidence({ greaseId }), settingsForUser(userId)]);
+  const [greases, evidence, settings] = await Promise.all([
+    listGreases(),
+    listEvidence({ greaseId }),
+    settingsForUser(userId),
+  ]);
   const self = greases.find((g) => g.id === greaseId);
   if (!self) throw new NotFoundError("No grease with this id.");
   return greases
     .filter((g) => g.id !== greaseId)
-    .map((other) => ({ other: { id: other.id, name: other.name, code: other.code }, result: evaluateMix(profileOf(self), profileOf(other), { evidence }, settings) }));
+    .map((other) => ({
+      other: { id: other.id, name: other.name, code: other.code },
+      result: evaluateMix(profileOf(self), profileOf(other), { evidence }, settings),
+    }));
 }
 
 /**
  * Records evidence about a pair. For a lab mixture test the verdict is the engine's judgement of the
  * results against the site's allowances; for a supplier statement it is what the statement says.
  */
-export async function createEvidence(input: EvidenceInput, userId: string, documentId: number | null): Promise<EvidenceDto> {
+export async function createEvidence(
+  input: EvidenceInput,
+  userId: string,
+  documentId: number | null,
+): Promise<EvidenceDto> {
   const [a, b] = await Promise.all([getGrease(input.greaseAId), getGrease(input.greaseBId)]);
   if (!a) throw new ValidationError({ greaseAId: ["No grease with this id."] });
   if (!b) throw new ValidationError({ greaseBId: ["No grease with this id."] });
@@ -227,25 +292,58 @@ export async function createEvidence(input: EvidenceInput, userId: string, docum
     const test: MixtureTestInput = {
       neatA: input.neatA ?? {},
       neatB: input.neatB ?? {},
-      mixtures: (input.mixtures ?? []).map((m) => ({ ratioA: m.ratioA, ratioB: 100 - m.ratioA, result: m.result })),
+      mixtures: (input.mixtures ?? []).map((m) => ({
+        ratioA: m.ratioA,
+        ratioB: 100 - m.ratioA,
+        result: m.result,
+      })),
     };
     const settings = await settingsForUser(userId);
     const judged = evaluateMixtureTest(test, settings);
     if (judged.verdict === "unknown") {
-      throw new ValidationError({ mixtures: ["Enter dropping point, worked penetration and storage change for every mixture and both neat greases."] });
+      throw new ValidationError({
+        mixtures: [
+          "Enter dropping point, worked penetration and storage change for every mixture and both neat greases.",
+        ],
+      });
     }
     verdict = judged.verdict;
     testData = JSON.stringify({ greaseAId: a.id, greaseBId: b.id, ...test });
   }
   const sequelize = getSequelize();
-  const [id] = await sequelize.query(
-    `INSERT INTO grease_pair_evidence (grease_low_id, grease_high_id, kind, verdict, title, summary, test_data, document_id, recorded_by, recorded_at)
-     VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-    {
-      replacements: [Math.min(a.id, b.id), Math.max(a.id, b.id), input.kind, verdict, input.title, input.summary ?? null, testData, documentId, userId, new Date()],
-      type: QueryTypes.INSERT,
-    },
-  );
+  const id = await sequelize.transaction(async (transaction) => {
+    const [inserted] = await sequelize.query(
+      `INSERT INTO grease_pair_evidence (grease_low_id, grease_high_id, kind, verdict, title, summary, test_data, document_id, recorded_by, recorded_at)
+       VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+      {
+        replacements: [
+          Math.min(a.id, b.id),
+          Math.max(a.id, b.id),
+          input.kind,
+          verdict,
+          input.title,
+          input.summary ?? null,
+          testData,
+          documentId,
+          userId,
+          new Date(),
+        ],
+        type: QueryTypes.INSERT,
+        transaction,
+      },
+    );
+    await appendAudit(
+      {
+        event: "rules.evidence_recorded",
+        actorId: userId,
+        subjectType: "evidence",
+        subjectId: Number(inserted),
+        payload: { greases: [a.code, b.code], kind: input.kind, verdict, title: input.title, documentId },
+      },
+      transaction,
+    );
+    return inserted;
+  });
   log("info", "evidence_recorded", { evidenceId: id, greases: [a.id, b.id], verdict, by: userId });
   const [dto] = await listEvidence({ id: Number(id) });
   return dto!;

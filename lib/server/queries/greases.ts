@@ -1,9 +1,17 @@
 import "server-only";
 import { Op, type Transaction } from "sequelize";
-import type { BaseOilType, FoodGrade, NlgiGrade, PackKind, SolidAdditive, Thickener } from "@/lib/domain/catalogue";
+import type {
+  BaseOilType,
+  FoodGrade,
+  NlgiGrade,
+  PackKind,
+  SolidAdditive,
+  Thickener,
+} from "@/lib/domain/catalogue";
 import type { Grease, GreaseDocument, GreasePack, StoredDocument } from "@/models";
 import { greaseSchema, type GreaseInput, type GreasePatch } from "@/lib/validation/grease";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
+import { appendAudit } from "../audit";
 import { boundModels, getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
@@ -48,7 +56,8 @@ export interface GreaseDto {
   updatedAt: string;
 }
 
-const num = (v: string | number | null | undefined) => (v === null || v === undefined ? undefined : Number(v));
+const num = (v: string | number | null | undefined) =>
+  v === null || v === undefined ? undefined : Number(v);
 const opt = <T>(v: T | null | undefined) => (v === null || v === undefined ? undefined : v);
 
 function toDto(g: Grease, supplierName: string, packs: GreasePack[]): GreaseDto {
@@ -75,7 +84,12 @@ function toDto(g: Grease, supplierName: string, packs: GreasePack[]): GreaseDto 
     packs: packs
       .filter((p) => p.greaseId === g.id)
       .sort((a, b) => a.netMassGrams - b.netMassGrams)
-      .map((p) => ({ id: p.id, kind: p.kind, netMassGrams: p.netMassGrams, ...(p.label ? { label: p.label } : {}) })),
+      .map((p) => ({
+        id: p.id,
+        kind: p.kind,
+        netMassGrams: p.netMassGrams,
+        ...(p.label ? { label: p.label } : {}),
+      })),
     updatedAt: new Date(g.updatedAt).toISOString(),
   };
 }
@@ -83,14 +97,20 @@ function toDto(g: Grease, supplierName: string, packs: GreasePack[]): GreaseDto 
 /** Every grease with its supplier and packs, by name (two statements, whatever the number of greases). */
 export async function listGreases(): Promise<GreaseDto[]> {
   const { Grease, GreasePack, Supplier } = boundModels();
-  const greases = await Grease.findAll({ include: [{ model: Supplier, as: "supplier", attributes: ["name"] }], order: [["name", "ASC"]] });
+  const greases = await Grease.findAll({
+    include: [{ model: Supplier, as: "supplier", attributes: ["name"] }],
+    order: [["name", "ASC"]],
+  });
   const packs = await GreasePack.findAll();
   return greases.map((g) => toDto(g, g.supplier?.name ?? "", packs));
 }
 
 export async function getGrease(id: number, transaction?: Transaction): Promise<GreaseDto | null> {
   const { Grease, GreasePack, Supplier } = boundModels();
-  const grease = await Grease.findByPk(id, { include: [{ model: Supplier, as: "supplier", attributes: ["name"] }], transaction });
+  const grease = await Grease.findByPk(id, {
+    include: [{ model: Supplier, as: "supplier", attributes: ["name"] }],
+    transaction,
+  });
   if (!grease) return null;
   const packs = await GreasePack.findAll({ where: { greaseId: id }, transaction });
   return toDto(grease, grease.supplier?.name ?? "", packs);
@@ -124,7 +144,14 @@ async function supplierId(name: string, transaction: Transaction, now: Date): Pr
   const { Supplier } = boundModels();
   const [supplier] = await Supplier.findOrCreate({
     where: { name },
-    defaults: { name, contactName: null, contactEmail: null, leadTimeDays: null, createdAt: now, updatedAt: now },
+    defaults: {
+      name,
+      contactName: null,
+      contactEmail: null,
+      leadTimeDays: null,
+      createdAt: now,
+      updatedAt: now,
+    },
     transaction,
   });
   return supplier.id;
@@ -156,25 +183,52 @@ function isDuplicateCode(error: unknown) {
 }
 
 /** Inserts one grease and its packs inside a transaction the caller owns. */
-export async function insertGrease(input: GreaseInput, userId: string | null, transaction: Transaction, now = new Date()): Promise<number> {
+export async function insertGrease(
+  input: GreaseInput,
+  userId: string | null,
+  transaction: Transaction,
+  now = new Date(),
+): Promise<number> {
   const { Grease, GreasePack } = boundModels();
   const grease = await Grease.create(
-    { ...columns(input), supplierId: await supplierId(input.supplier, transaction, now), createdBy: userId, updatedBy: userId },
+    {
+      ...columns(input),
+      supplierId: await supplierId(input.supplier, transaction, now),
+      createdBy: userId,
+      updatedBy: userId,
+    },
     { transaction },
   );
   for (const pack of input.packs) {
-    await GreasePack.create({ greaseId: grease.id, kind: pack.kind, netMassGrams: pack.netMassGrams, label: pack.label ?? null }, { transaction });
+    await GreasePack.create(
+      { greaseId: grease.id, kind: pack.kind, netMassGrams: pack.netMassGrams, label: pack.label ?? null },
+      { transaction },
+    );
   }
   return grease.id;
 }
 
 export async function createGrease(input: GreaseInput, userId: string | null): Promise<GreaseDto> {
   try {
-    const id = await getSequelize().transaction((t) => insertGrease(input, userId, t));
+    const id = await getSequelize().transaction(async (t) => {
+      const created = await insertGrease(input, userId, t);
+      await appendAudit(
+        {
+          event: "catalogue.grease_created",
+          actorId: userId,
+          subjectType: "grease",
+          subjectId: created,
+          payload: { code: input.code, name: input.name },
+        },
+        t,
+      );
+      return created;
+    });
     log("info", "grease_created", { greaseId: id, code: input.code, by: userId });
     return (await getGrease(id))!;
   } catch (error) {
-    if (isDuplicateCode(error)) throw new ValidationError({ code: ["Another grease already has this code."] });
+    if (isDuplicateCode(error))
+      throw new ValidationError({ code: ["Another grease already has this code."] });
     throw error;
   }
 }
@@ -184,7 +238,11 @@ export async function createGrease(input: GreaseInput, userId: string | null): P
  * a stale `version` gives 409. Packs, when given, are the full new list: packs with an id are kept or
  * changed, packs without an id are added, packs not listed are removed.
  */
-export async function updateGrease(id: number, patch: GreasePatch, userId: string | null): Promise<GreaseDto> {
+export async function updateGrease(
+  id: number,
+  patch: GreasePatch,
+  userId: string | null,
+): Promise<GreaseDto> {
   const { Grease, GreasePack } = boundModels();
   const sequelize = getSequelize();
   try {
@@ -194,7 +252,10 @@ export async function updateGrease(id: number, patch: GreasePatch, userId: strin
       await Grease.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
       const { version, ...changes } = patch;
       if (version !== undefined && version !== current.version) {
-        throw new ConflictError("stale_version", "Someone else changed this grease since you opened it. Reload and apply your change again.");
+        throw new ConflictError(
+          "stale_version",
+          "Someone else changed this grease since you opened it. Reload and apply your change again.",
+        );
       }
       const merged = greaseSchema.safeParse({ ...current, ...changes });
       if (!merged.success) throw new ValidationError(zodFieldErrors(merged.error));
@@ -202,7 +263,10 @@ export async function updateGrease(id: number, patch: GreasePatch, userId: strin
       if (changes.packs) {
         const keep = new Set(changes.packs.map((p) => p.id).filter((v): v is number => v !== undefined));
         const unknown = [...keep].filter((packId) => !current.packs.some((p) => p.id === packId));
-        if (unknown.length) throw new ValidationError({ packs: [`Pack ${unknown.join(", ")} does not belong to this grease.`] });
+        if (unknown.length)
+          throw new ValidationError({
+            packs: [`Pack ${unknown.join(", ")} does not belong to this grease.`],
+          });
         await GreasePack.destroy({ where: { greaseId: id, id: { [Op.notIn]: [...keep, 0] } }, transaction });
         for (const pack of changes.packs) {
           const values = { kind: pack.kind, netMassGrams: pack.netMassGrams, label: pack.label ?? null };
@@ -219,9 +283,20 @@ export async function updateGrease(id: number, patch: GreasePatch, userId: strin
         },
         { where: { id }, transaction },
       );
+      await appendAudit(
+        {
+          event: "catalogue.grease_updated",
+          actorId: userId,
+          subjectType: "grease",
+          subjectId: id,
+          payload: { code: input.code, changes },
+        },
+        transaction,
+      );
     });
   } catch (error) {
-    if (isDuplicateCode(error)) throw new ValidationError({ code: ["Another grease already has this code."] });
+    if (isDuplicateCode(error))
+      throw new ValidationError({ code: ["Another grease already has this code."] });
     throw error;
   }
   log("info", "grease_updated", { greaseId: id, by: userId, fields: Object.keys(patch) });
@@ -237,12 +312,27 @@ export async function existingGreaseCodes(codes: string[]): Promise<Set<string>>
 }
 
 /** Sets (or replaces) the safety or technical data sheet of a grease. */
-export async function setGreaseDocument(greaseId: number, kind: "sds" | "tds", documentId: number): Promise<void> {
+export async function setGreaseDocument(
+  greaseId: number,
+  kind: "sds" | "tds",
+  documentId: number,
+  userId: string | null = null,
+): Promise<void> {
   const { GreaseDocument } = boundModels();
   await requireGrease(greaseId);
   await getSequelize().transaction(async (transaction) => {
     await GreaseDocument.destroy({ where: { greaseId, kind }, transaction });
     await GreaseDocument.create({ greaseId, kind, documentId }, { transaction });
+    await appendAudit(
+      {
+        event: "catalogue.document_set",
+        actorId: userId,
+        subjectType: "grease",
+        subjectId: greaseId,
+        payload: { kind, documentId },
+      },
+      transaction,
+    );
   });
   log("info", "grease_document_set", { greaseId, kind, documentId });
 }
@@ -258,9 +348,22 @@ export async function importGreases(inputs: GreaseInput[], userId: string | null
   try {
     await getSequelize().transaction(async (t) => {
       for (const input of inputs) await insertGrease(input, userId, t);
+      await appendAudit(
+        {
+          event: "catalogue.imported",
+          actorId: userId,
+          subjectType: "grease",
+          payload: { count: inputs.length, codes: inputs.map((i) => i.code) },
+        },
+        t,
+      );
     });
   } catch (error) {
-    if (isDuplicateCode(error)) throw new ConflictError("duplicate_code", "A code in the file was added by someone else meanwhile. Preview again.");
+    if (isDuplicateCode(error))
+      throw new ConflictError(
+        "duplicate_code",
+        "A code in the file was added by someone else meanwhile. Preview again.",
+      );
     throw error;
   }
   log("info", "greases_imported", { count: inputs.length, by: userId });

@@ -540,6 +540,11 @@ export async function planChangeover(
         transaction,
       },
     );
+    await appendAudit(
+      { event: "changeover.planned", actorId: userId, siteId: point.siteId, subjectType: "point", subjectId: point.tag, payload: { from: point.currentGrease?.code ?? null, to: to.code, method: input.method, servicesPlanned: input.servicesPlanned } },
+      transaction,
+      now,
+    );
   });
   log("info", "changeover_planned", { tag: input.tag, toGreaseId: input.toGreaseId, by: userId });
 }
@@ -547,6 +552,10 @@ export async function planChangeover(
 export async function cancelChangeover(tag: string, userId: string, now = new Date()): Promise<void> {
   const point = await getPointByTag(tag, userId, now);
   if (!point.changeover) throw new NotFoundError("No changeover is running at this point.");
-  await getSequelize().query("UPDATE changeover SET state = 'cancelled', completed_at = ? WHERE id = ?", { replacements: [now, point.changeover.id] });
+  const changeoverId = point.changeover.id;
+  await getSequelize().transaction(async (transaction) => {
+    await getSequelize().query("UPDATE changeover SET state = 'cancelled', completed_at = ? WHERE id = ?", { replacements: [now, changeoverId], transaction });
+    await appendAudit({ event: "changeover.cancelled", actorId: userId, siteId: point.siteId, subjectType: "point", subjectId: tag, payload: { changeoverId } }, transaction, now);
+  });
   log("info", "changeover_cancelled", { tag, by: userId });
 }

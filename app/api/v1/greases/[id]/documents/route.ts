@@ -26,7 +26,7 @@ export const POST = apiRoute<{ id: string }>({ action: "catalogue.write" }, asyn
   if (!kind.success) throw new ValidationError({ kind: [kind.error.issues[0]!.message] });
   const documentId = await storePdf(form.get("file"), "file", user.id);
   try {
-    await setGreaseDocument(greaseId, kind.data, documentId);
+    await setGreaseDocument(greaseId, kind.data, documentId, user.id);
   } catch (error) {
     await discardStoredFile(documentId);
     throw error;
