@@ -108,9 +108,10 @@ export function incidentPdfStream(input: PdfReportInput): ReadableStream<Uint8Ar
     margin: 40,
     info: { Title: "Mixing-incident report", Creator: "Greaseledger" },
   });
-  doc.registerFont("body", path.join(FONT_DIR, "atkinson-hyperlegible-latin-400-normal.woff2"));
-  doc.registerFont("bold", path.join(FONT_DIR, "atkinson-hyperlegible-latin-700-normal.woff2"));
-  const period = `${input.filter.from ?? "the first entry"} to ${input.filter.to ?? input.now.toISOString().slice(0, 10)}`;
+  // WOFF, not WOFF2: the glyphs pdfkit subsets from WOFF2 files come out blank in some PDF viewers.
+  doc.registerFont("body", path.join(FONT_DIR, "atkinson-hyperlegible-latin-400-normal.woff"));
+  doc.registerFont("bold", path.join(FONT_DIR, "atkinson-hyperlegible-latin-700-normal.woff"));
+  const period = `${input.filter.from ?? "the first incident"} to ${input.filter.to ?? input.now.toISOString().slice(0, 10)}`;
 
   const stream = new ReadableStream<Uint8Array>({
     start(controller) {
@@ -178,7 +179,7 @@ export function incidentPdfStream(input: PdfReportInput): ReadableStream<Uint8Ar
       doc.text(`Head hash (SHA-256): ${input.head.hash}`);
       doc.moveDown(0.3);
       doc.text(
-        "Every change to an incident is an entry in Greaseledger's append-only audit trail, and each entry carries the hash of the one before. Keep this report: if any entry up to the one above is later changed or removed, the chain no longer verifies (Audit trail → Verify the chain) and no longer ends in this hash at this entry.",
+        "Every change to an incident is an entry in Greaseledger's append-only audit trail, and each entry carries the hash of the one before. Keep this report: if any entry up to the one above is later changed or removed, the chain no longer verifies (on the Audit trail page: Verify the chain) and no longer ends in this hash at this entry.",
       );
       doc.end();
     } catch (error) {
