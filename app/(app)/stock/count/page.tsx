@@ -26,7 +26,7 @@ export default async function CountPage({ searchParams }: { searchParams: Promis
         title="Cycle count"
         lead="Count one location at a time. Type what is on the shelf for every lot; differences from the books are posted as adjustments with your reason."
       />
-      <div className="grid gap-6 lg:grid-cols-[16rem_minmax(0,1fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[16rem_minmax(0,1fr)]">
         <Card>
           <h2 className="mb-2 font-bold">Locations</h2>
           {locations.length === 0 ? (
