@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState, useState } from "react";
-import { Field, describedBy, inputClasses } from "@/components/ui/field";
+import { TextField } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { formValues, type ActionState } from "@/lib/validation/action-state";
@@ -39,9 +39,7 @@ export function IncidentWork({ id, version, state, move, note }: IncidentWorkPro
           <input type="hidden" name="id" value={id} />
           <input type="hidden" name="version" value={version} />
           <input type="hidden" name="to" value="investigating" />
-          <Field id="inv-note" label="What you will check (optional)">
-            <input id="inv-note" name="note" className={inputClasses} />
-          </Field>
+          <TextField id="inv-note" name="note" label="What you will check (optional)" />
           <SubmitButton pendingLabel="Saving…">Start the investigation</SubmitButton>
         </form>
       ) : null}
@@ -55,33 +53,23 @@ export function IncidentWork({ id, version, state, move, note }: IncidentWorkPro
           <input type="hidden" name="id" value={id} />
           <input type="hidden" name="version" value={version} />
           <input type="hidden" name="to" value="closed" />
-          <Field id="rootCause" label="Root cause" errors={errors.rootCause}>
-            <textarea
-              id="rootCause"
-              name="rootCause"
-              rows={3}
-              className={inputClasses}
-              defaultValue={dv("rootCause")}
-              aria-invalid={Boolean(errors.rootCause)}
-              aria-describedby={describedBy("rootCause")}
-            />
-          </Field>
-          <Field
+          <TextField
+            id="rootCause"
+            name="rootCause"
+            label="Root cause"
+            rows={3}
+            errors={errors.rootCause}
+            defaultValue={dv("rootCause")}
+          />
+          <TextField
             id="correctiveAction"
+            name="correctiveAction"
             label="Corrective action"
+            rows={3}
             errors={errors.correctiveAction}
+            defaultValue={dv("correctiveAction")}
             hint="What was done to the bearing (purge, clean-out, replacement) and what stops it happening again."
-          >
-            <textarea
-              id="correctiveAction"
-              name="correctiveAction"
-              rows={3}
-              className={inputClasses}
-              defaultValue={dv("correctiveAction")}
-              aria-invalid={Boolean(errors.correctiveAction)}
-              aria-describedby={describedBy("correctiveAction", true)}
-            />
-          </Field>
+          />
           <SubmitButton pendingLabel="Closing…">Close the incident</SubmitButton>
         </form>
       ) : (
@@ -89,9 +77,7 @@ export function IncidentWork({ id, version, state, move, note }: IncidentWorkPro
           <input type="hidden" name="id" value={id} />
           <input type="hidden" name="version" value={version} />
           <input type="hidden" name="to" value="open" />
-          <Field id="reopen-note" label="Why it is reopened">
-            <input id="reopen-note" name="note" className={inputClasses} />
-          </Field>
+          <TextField id="reopen-note" name="note" label="Why it is reopened" />
           <SubmitButton variant="secondary" pendingLabel="Reopening…">
             Reopen
           </SubmitButton>
@@ -101,13 +87,13 @@ export function IncidentWork({ id, version, state, move, note }: IncidentWorkPro
         <input type="hidden" name="id" value={id} />
         {noteState.status === "error" ? <Notice tone="danger">{noteState.message}</Notice> : null}
         {noteState.status === "success" ? <Notice tone="success">{noteState.message}</Notice> : null}
-        <Field
+        <TextField
           id="note"
+          name="note"
           label="Note for the timeline"
+          rows={2}
           errors={noteState.status === "invalid" ? noteState.fieldErrors.note : undefined}
-        >
-          <textarea id="note" name="note" rows={2} className={inputClasses} />
-        </Field>
+        />
         <SubmitButton variant="secondary" pendingLabel="Adding…">
           Add the note
         </SubmitButton>

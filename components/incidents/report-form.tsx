@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState } from "react";
-import { Field, describedBy, inputClasses } from "@/components/ui/field";
+import { Field, TextField, describedBy, inputClasses } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { formValues, type ActionState } from "@/lib/validation/action-state";
@@ -26,22 +26,16 @@ export function ReportForm({ greases, initialTag, action }: ReportFormProps) {
       key={state.status === "invalid" ? JSON.stringify(sent) : "form"}
     >
       {state.status === "error" ? <Notice tone="danger">{state.message}</Notice> : null}
-      <Field
+      <TextField
         id="pointTag"
+        name="pointTag"
         label="Lube point tag"
+        autoComplete="off"
+        inputClassName="font-mono uppercase"
         errors={errors.pointTag}
+        defaultValue={dv("pointTag")}
         hint="The 8-character code under the point's QR tag."
-      >
-        <input
-          id="pointTag"
-          name="pointTag"
-          autoComplete="off"
-          className={`${inputClasses} font-mono uppercase`}
-          defaultValue={dv("pointTag")}
-          aria-invalid={Boolean(errors.pointTag)}
-          aria-describedby={describedBy("pointTag", true)}
-        />
-      </Field>
+      />
       <Field id="greaseFoundId" label="Grease found in the point" errors={errors.greaseFoundId}>
         <select
           id="greaseFoundId"
@@ -59,17 +53,14 @@ export function ReportForm({ greases, initialTag, action }: ReportFormProps) {
           ))}
         </select>
       </Field>
-      <Field id="description" label="What was found" errors={errors.description}>
-        <textarea
-          id="description"
-          name="description"
-          rows={4}
-          className={inputClasses}
-          defaultValue={dv("description")}
-          aria-invalid={Boolean(errors.description)}
-          aria-describedby={describedBy("description")}
-        />
-      </Field>
+      <TextField
+        id="description"
+        name="description"
+        label="What was found"
+        rows={4}
+        errors={errors.description}
+        defaultValue={dv("description")}
+      />
       <SubmitButton pendingLabel="Reporting…">Report the incident</SubmitButton>
     </form>
   );

@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState, useState } from "react";
-import { Field, describedBy, inputClasses } from "@/components/ui/field";
+import { Field, TextField, describedBy, inputClasses } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { formValues, type ActionState } from "@/lib/validation/action-state";
@@ -118,59 +118,43 @@ export function ReceiveForm({ greases, locations, requests, initialRequestId, ac
             ))}
           </select>
         </Field>
-        <Field id="quantity" label="Containers received" errors={errors.quantity}>
-          <input
-            id="quantity"
-            name="quantity"
-            inputMode="numeric"
-            className={inputClasses}
-            defaultValue={dv("quantity")}
-            aria-invalid={Boolean(errors.quantity)}
-            aria-describedby={describedBy("quantity")}
-          />
-        </Field>
-        <Field id="lotNumber" label="Lot number (from the label)" errors={errors.lotNumber}>
-          <input
-            id="lotNumber"
-            name="lotNumber"
-            autoComplete="off"
-            className={inputClasses}
-            defaultValue={dv("lotNumber")}
-            aria-invalid={Boolean(errors.lotNumber)}
-            aria-describedby={describedBy("lotNumber")}
-          />
-        </Field>
-        <Field id="manufacturedOn" label="Manufactured on (optional)" errors={errors.manufacturedOn}>
-          <input
-            id="manufacturedOn"
-            name="manufacturedOn"
-            type="date"
-            className={inputClasses}
-            defaultValue={dv("manufacturedOn")}
-            aria-invalid={Boolean(errors.manufacturedOn)}
-            aria-describedby={describedBy("manufacturedOn")}
-          />
-        </Field>
-        <Field
+        <TextField
+          id="quantity"
+          name="quantity"
+          label="Containers received"
+          inputMode="numeric"
+          errors={errors.quantity}
+          defaultValue={dv("quantity")}
+        />
+        <TextField
+          id="lotNumber"
+          name="lotNumber"
+          label="Lot number (from the label)"
+          autoComplete="off"
+          errors={errors.lotNumber}
+          defaultValue={dv("lotNumber")}
+        />
+        <TextField
+          id="manufacturedOn"
+          name="manufacturedOn"
+          type="date"
+          label="Manufactured on (optional)"
+          errors={errors.manufacturedOn}
+          defaultValue={dv("manufacturedOn")}
+        />
+        <TextField
           id="expiresOn"
+          name="expiresOn"
+          type="date"
           label="Expires on (optional)"
           errors={errors.expiresOn}
+          defaultValue={dv("expiresOn")}
           hint={
             grease?.shelfLifeMonths
               ? `Left empty: ${grease.shelfLifeMonths} months' shelf life from manufacture, or from today.`
               : "Left empty and no shelf life known: the lot has no expiry date."
           }
-        >
-          <input
-            id="expiresOn"
-            name="expiresOn"
-            type="date"
-            className={inputClasses}
-            defaultValue={dv("expiresOn")}
-            aria-invalid={Boolean(errors.expiresOn)}
-            aria-describedby={describedBy("expiresOn", true)}
-          />
-        </Field>
+        />
         <Field id="location" label="Put away at" errors={errors.location}>
           <select
             id="location"
@@ -187,21 +171,15 @@ export function ReceiveForm({ greases, locations, requests, initialRequestId, ac
             ))}
           </select>
         </Field>
-        <Field
+        <TextField
           id="deliveryNote"
+          name="deliveryNote"
+          type="file"
+          accept="application/pdf,.pdf"
           label="Delivery note (PDF, optional)"
           errors={errors.deliveryNote}
           hint="A scan of the supplier's delivery note, at most 10 MB."
-        >
-          <input
-            id="deliveryNote"
-            name="deliveryNote"
-            type="file"
-            accept="application/pdf,.pdf"
-            className={inputClasses}
-            aria-describedby={describedBy("deliveryNote", true)}
-          />
-        </Field>
+        />
       </div>
       <SubmitButton pendingLabel="Receiving…">Receive and print labels</SubmitButton>
     </form>

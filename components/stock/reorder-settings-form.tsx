@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState } from "react";
-import { Field, describedBy, inputClasses } from "@/components/ui/field";
+import { Field, TextField, inputClasses } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { formValues, type ActionState } from "@/lib/validation/action-state";
@@ -52,38 +52,24 @@ export function ReorderSettingsForm({ sites, greases, action }: ReorderSettingsF
             ))}
           </select>
         </Field>
-        <Field
+        <TextField
           id="rp-kg"
+          name="reorderPointKg"
           label="Fixed reorder point (kg)"
+          inputMode="decimal"
           errors={errors.reorderPointKg}
+          defaultValue={dv("reorderPointKg")}
           hint="Blank: worked out from the schedule, the lead time and the safety stock."
-        >
-          <input
-            id="rp-kg"
-            name="reorderPointKg"
-            inputMode="decimal"
-            className={inputClasses}
-            defaultValue={dv("reorderPointKg")}
-            aria-describedby={describedBy("rp-kg", true)}
-            aria-invalid={Boolean(errors.reorderPointKg)}
-          />
-        </Field>
-        <Field
+        />
+        <TextField
           id="rp-weeks"
+          name="safetyStockWeeks"
           label="Safety stock (weeks)"
+          inputMode="decimal"
           errors={errors.safetyStockWeeks}
+          defaultValue={dv("safetyStockWeeks")}
           hint="Blank: 2 weeks of forecast use."
-        >
-          <input
-            id="rp-weeks"
-            name="safetyStockWeeks"
-            inputMode="decimal"
-            className={inputClasses}
-            defaultValue={dv("safetyStockWeeks")}
-            aria-describedby={describedBy("rp-weeks", true)}
-            aria-invalid={Boolean(errors.safetyStockWeeks)}
-          />
-        </Field>
+        />
       </div>
       <SubmitButton variant="secondary" pendingLabel="Saving…">
         Save the reorder settings

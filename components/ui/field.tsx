@@ -41,3 +41,55 @@ export function describedBy(id: string, hasHint = false) {
 
 export const inputClasses =
   "min-h-10 w-full rounded-md border border-line-strong bg-paper-raised px-3 py-2 text-base text-ink placeholder:text-ink-faint aria-[invalid=true]:border-bad";
+
+export interface TextFieldProps {
+  id: string;
+  name: string;
+  label: string;
+  hint?: string;
+  errors?: string[];
+  defaultValue?: string;
+  type?: "text" | "date" | "file";
+  inputMode?: "numeric" | "decimal";
+  accept?: string;
+  autoComplete?: string;
+  /** Rows of a multi-line field; omitted for a one-line input. */
+  rows?: number;
+  className?: string;
+  inputClassName?: string;
+}
+
+/** A labelled input or textarea with its hint and errors, wired for screen readers: the common form row. */
+export function TextField({
+  id,
+  name,
+  label,
+  hint,
+  errors,
+  defaultValue,
+  type = "text",
+  inputMode,
+  accept,
+  autoComplete,
+  rows,
+  className,
+  inputClassName,
+}: TextFieldProps) {
+  const shared = {
+    id,
+    name,
+    defaultValue,
+    className: cn(inputClasses, inputClassName),
+    "aria-invalid": Boolean(errors?.length),
+    "aria-describedby": describedBy(id, Boolean(hint)),
+  };
+  return (
+    <Field id={id} label={label} hint={hint} errors={errors} className={className}>
+      {rows ? (
+        <textarea rows={rows} {...shared} />
+      ) : (
+        <input type={type} inputMode={inputMode} accept={accept} autoComplete={autoComplete} {...shared} />
+      )}
+    </Field>
+  );
+}
