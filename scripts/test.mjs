@@ -147,6 +147,14 @@ try {
     if (wanted("integration")) results.push(await vitest("integration", testEnv));
     if (wanted("e2e")) results.push(await playwright(testEnv));
   }
+  // A tiny run of the benchmark, so `npm run bench` cannot rot (its figures mean nothing at this size).
+  if (!only.length)
+    results.push(
+      await check("benchmark smoke run", process.execPath, [
+        path.join(root, "scripts", "bench.mjs"),
+        "--smoke",
+      ]),
+    );
 
   const passed = results.reduce((n, r) => n + r.passed, 0);
   const failed = results.reduce((n, r) => n + r.failed, 0);
