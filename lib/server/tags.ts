@@ -16,11 +16,11 @@ export function parseTagParam(raw: string | undefined): string {
 }
 
 export function tagQrSvg(tag: string): Promise<string> {
-  return QRCode.toString(tagUrl(tag), { type: "svg", errorCorrectionLevel: "Q", margin: 2 });
+  return QRCode.toString(tagUrl(tag), { type: "svg", errorCorrectionLevel: "Q", margin: 4 });
 }
 
 export function tagQrPng(tag: string, width = 480): Promise<Buffer> {
-  return QRCode.toBuffer(tagUrl(tag), { type: "png", errorCorrectionLevel: "Q", margin: 2, width });
+  return QRCode.toBuffer(tagUrl(tag), { type: "png", errorCorrectionLevel: "Q", margin: 4, width });
 }
 
 /** The URL a container label's QR code carries: /c/<label code>, which opens the lot. */
@@ -35,9 +35,9 @@ export function parseLabelParam(raw: string | undefined): string {
 }
 
 export function containerQrSvg(code: string): Promise<string> {
-  return QRCode.toString(containerUrl(code), { type: "svg", errorCorrectionLevel: "Q", margin: 2 });
+  return QRCode.toString(containerUrl(code), { type: "svg", errorCorrectionLevel: "Q", margin: 4 });
 }
 
 export function containerQrPng(code: string, width = 480): Promise<Buffer> {
-  return QRCode.toBuffer(containerUrl(code), { type: "png", errorCorrectionLevel: "Q", margin: 2, width });
+  return QRCode.toBuffer(containerUrl(code), { type: "png", errorCorrectionLevel: "Q", margin: 4, width });
 }
