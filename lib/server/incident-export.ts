@@ -4,11 +4,39 @@ import { stringify } from "csv-stringify/sync";
 import PDFDocument from "pdfkit";
 import { neutraliseCell } from "@/lib/csv";
 import type { IncidentFilter } from "@/lib/validation/incidents";
-import { forEachIncidentPage, type Incident } from "./queries/incidents";
+import { appendAudit } from "./audit";
+import { getSequelize } from "./db";
+import { countIncidents, forEachIncidentPage, type Incident } from "./queries/incidents";
 
 export interface ChainHead {
   seq: number;
   hash: string;
+}
+
+/**
+ * Starts an export: counts what it will hold and records it in the audit trail first, so the chain head returned
+ * (printed in the PDF, sent as headers) covers the export itself.
+ */
+export async function beginIncidentExport(
+  userId: string,
+  format: "csv" | "pdf",
+  filter: IncidentFilter,
+  now: Date,
+) {
+  const counts = await countIncidents(userId, filter);
+  const head: ChainHead = await getSequelize().transaction((t) =>
+    appendAudit(
+      {
+        event: "incident.exported",
+        actorId: userId,
+        subjectType: "incident_log",
+        payload: { format, filter, rows: counts.total },
+      },
+      t,
+      now,
+    ),
+  );
+  return { counts, head };
 }
 
 const KIND: Record<string, string> = {

@@ -3,7 +3,9 @@ import type { Lot } from "./types";
 
 /** Expiry as a number for sorting: an unknown or invalid expiry sorts after every dated lot. */
 function expiryKey(lot: Lot): number {
-  return lot.expiresOn !== null && isValidDate(lot.expiresOn) ? lot.expiresOn.getTime() : Number.POSITIVE_INFINITY;
+  return lot.expiresOn !== null && isValidDate(lot.expiresOn)
+    ? lot.expiresOn.getTime()
+    : Number.POSITIVE_INFINITY;
 }
 
 function receivedKey(lot: Lot): number {
@@ -35,5 +37,10 @@ function compare(a: number, b: number): number {
 
 /** True when the lot has a valid expiry date before `now` (expiring exactly at `now` is not yet expired). */
 export function isExpired(lot: Lot, now: Date): boolean {
-  return lot.expiresOn !== null && isValidDate(lot.expiresOn) && lot.expiresOn.getTime() < now.getTime();
+  return isExpiredOn(lot.expiresOn, now);
+}
+
+/** The same rule for a bare expiry date (null: no date, never expired). */
+export function isExpiredOn(expiresOn: Date | null, now: Date): boolean {
+  return expiresOn !== null && isValidDate(expiresOn) && expiresOn.getTime() < now.getTime();
 }

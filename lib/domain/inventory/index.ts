@@ -25,7 +25,7 @@ export { DEFAULT_SAFETY_STOCK_WEEKS, reorderPoint } from "./reorder-point";
 export { DEFAULT_COVER_WEEKS, orderQuantity } from "./order-quantity";
 export { isBelowReorderPoint } from "./is-below-reorder-point";
 export { lowStockEpisode } from "./low-stock-episode";
-export { fefoOrder } from "./fefo-order";
+export { fefoOrder, isExpiredOn } from "./fefo-order";
 export { pickLots } from "./pick-lots";
 export { lotsAtRisk } from "./lots-at-risk";
 export { addMonthsUtc } from "./add-months-utc";

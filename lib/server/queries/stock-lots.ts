@@ -1,13 +1,15 @@
 import "server-only";
 import { QueryTypes } from "sequelize";
+import { isExpiredOn } from "@/lib/domain/inventory";
 import { getSequelize } from "../db";
 import { NotFoundError, ValidationError } from "../errors";
+import { splitLocation } from "./stock";
 import { userSiteIds } from "./users";
 
 const day = (v: string | Date | null | undefined) =>
   v ? (typeof v === "string" ? v.slice(0, 10) : v.toISOString().slice(0, 10)) : null;
 const expiredOn = (expiresOn: string | null, now: Date) =>
-  expiresOn !== null && new Date(`${expiresOn}T00:00:00Z`).getTime() < now.getTime();
+  isExpiredOn(expiresOn === null ? null : new Date(`${expiresOn}T00:00:00Z`), now);
 const daysUntil = (expiresOn: string | null, now: Date) =>
   expiresOn === null
     ? null
@@ -258,9 +260,8 @@ export async function listIssueLots(
 ): Promise<IssueLot[]> {
   const sites = await userSiteIds(userId);
   if (!sites.length) return [];
-  const [siteCode, code] = query.location?.includes("/")
-    ? (query.location.split("/", 2) as [string, string])
-    : [null, query.location ?? null];
+  const [siteCode, located] = splitLocation(query.location);
+  const code = located ?? null;
   const rows = await getSequelize().query<{
     label_code: string;
     lot_number: string;

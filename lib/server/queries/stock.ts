@@ -4,6 +4,7 @@ import { QueryTypes, type Transaction } from "sequelize";
 import {
   expiryDate,
   isBelowReorderPoint,
+  isExpiredOn,
   orderQuantity,
   pickLots,
   reorderPoint,
@@ -24,6 +25,11 @@ import { siteLeadEmails, userSiteIds } from "./users";
 const dateOnly = (d: Date) => d.toISOString().slice(0, 10);
 const toDate = (v: string | Date | null | undefined) =>
   v ? new Date(typeof v === "string" ? `${v.slice(0, 10)}T00:00:00Z` : v) : null;
+
+/** "KBC/STORE" → ["KBC", "STORE"]; a bare "STORE" → [null, "STORE"]. */
+export function splitLocation(raw: string | undefined): [string | null, string | undefined] {
+  return raw?.includes("/") ? (raw.split("/", 2) as [string, string]) : [null, raw];
+}
 
 export interface ResolvedLocation {
   id: number;
@@ -48,7 +54,7 @@ export async function resolveLocation(
   const sites = onlySiteId === undefined ? all : all.filter((s) => s === onlySiteId);
   if (!sites.length)
     throw new ValidationError({ [field]: ["You have no access to this site; ask an administrator."] });
-  const [siteCode, code] = raw?.includes("/") ? (raw.split("/", 2) as [string, string]) : [null, raw];
+  const [siteCode, code] = splitLocation(raw);
   const rows = await getSequelize().query<{ id: number; site_id: number; code: string; site_code: string }>(
     `SELECT l.id, l.site_id, l.code, s.code AS site_code FROM storage_location l JOIN site s ON s.id = l.site_id
      WHERE l.site_id IN (:sites) ${code ? "AND l.code = :code" : ""} ${siteCode ? "AND s.code = :siteCode" : ""} ORDER BY l.site_id, l.id ${code ? "" : "LIMIT 1"}`,
@@ -397,7 +403,15 @@ async function receiveInTransaction(
       siteId: location.siteId,
       subjectType: "lot",
       subjectId: labelCode,
-      payload: { lotNumber: input.lotNumber, greaseId: input.greaseId, packId: input.packId, quantity: input.quantity, location: location.code, purchaseRequestId: requestId, deliveryNote: deliveryDocumentId !== null },
+      payload: {
+        lotNumber: input.lotNumber,
+        greaseId: input.greaseId,
+        packId: input.packId,
+        quantity: input.quantity,
+        location: location.code,
+        purchaseRequestId: requestId,
+        deliveryNote: deliveryDocumentId !== null,
+      },
     },
     transaction,
     now,
@@ -452,11 +466,8 @@ export async function lotRowsOfLabel(
   );
 }
 
-/** As the engine's isExpired: a lot is expired from the start (UTC) of its expiry date. */
-const isExpiredOn = (expiresOn: string | Date | null, now: Date) => {
-  const d = toDate(expiresOn);
-  return d !== null && d.getTime() < now.getTime();
-};
+/** The engine's rule: a lot is expired from the start (UTC) of its expiry date. */
+const lotExpired = (expiresOn: string | Date | null, now: Date) => isExpiredOn(toDate(expiresOn), now);
 
 /** Takes `quantity` containers out of one lot row with a conditional UPDATE and writes the ledger row. */
 async function takeFromRow(
@@ -562,7 +573,7 @@ export async function issueStock(
           ],
         });
       }
-      if (isExpiredOn(first.expires_on, now)) {
+      if (lotExpired(first.expires_on, now)) {
         throw new ValidationError({
           lotLabel: [
             `Lot ${first.lot_number} expired on ${dateOnly(toDate(first.expires_on)!)}: do not issue it; have it tested or scrap it.`,
@@ -671,7 +682,13 @@ export async function issueStock(
         siteId,
         subjectType: "grease",
         subjectId: input.greaseId,
-        payload: { packId: input.packId, quantity: input.quantity, lots: picks.map((p) => ({ label: p.row.label_code, quantity: p.quantity })), issuedTo: input.issuedToUserId ?? null, pointId },
+        payload: {
+          packId: input.packId,
+          quantity: input.quantity,
+          lots: picks.map((p) => ({ label: p.row.label_code, quantity: p.quantity })),
+          issuedTo: input.issuedToUserId ?? null,
+          pointId,
+        },
       },
       transaction,
       now,
@@ -717,7 +734,7 @@ export async function containerForService(
         `Label ${input.labelCode} is lot ${first.lot_number} of another grease than the one chosen.`,
       ],
     });
-  if (isExpiredOn(first.expires_on, now)) {
+  if (lotExpired(first.expires_on, now)) {
     throw new ValidationError({
       containerLabel: [
         `Lot ${first.lot_number} expired on ${dateOnly(toDate(first.expires_on)!)}: do not use it; take it back to the store.`,
@@ -798,7 +815,11 @@ export async function listStock(userId: string, now = new Date()): Promise<Stock
         k,
         sequelize.transaction(async (t) => {
           const point = await reorderPointGrams(siteId, greaseId, lead, now, t);
-          return { rp: point.grams, perWeek: point.gramsPerWeek, total: await onHandGrams(siteId, greaseId, t) };
+          return {
+            rp: point.grams,
+            perWeek: point.gramsPerWeek,
+            total: await onHandGrams(siteId, greaseId, t),
+          };
         }),
       );
     }

@@ -1,9 +1,7 @@
-import { appendAudit } from "@/lib/server/audit";
 import { apiRoute } from "@/lib/server/api";
-import { getSequelize } from "@/lib/server/db";
 import { ValidationError } from "@/lib/server/errors";
-import { incidentCsvStream, incidentPdfStream } from "@/lib/server/incident-export";
-import { countIncidents, userSiteNames } from "@/lib/server/queries/incidents";
+import { beginIncidentExport, incidentCsvStream, incidentPdfStream } from "@/lib/server/incident-export";
+import { userSiteNames } from "@/lib/server/queries/incidents";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
 import { incidentExportSchema } from "@/lib/validation/incidents";
 
@@ -19,19 +17,7 @@ export const GET = apiRoute({ action: "incidents.export" }, async ({ request, us
   if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
   const { format, ...filter } = parsed.data;
   const now = new Date();
-  const counts = await countIncidents(user.id, filter);
-  const head = await getSequelize().transaction((t) =>
-    appendAudit(
-      {
-        event: "incident.exported",
-        actorId: user.id,
-        subjectType: "incident_log",
-        payload: { format, filter, rows: counts.total },
-      },
-      t,
-      now,
-    ),
-  );
+  const { counts, head } = await beginIncidentExport(user.id, format, filter, now);
   const day = now.toISOString().slice(0, 10);
   const headers = {
     "Content-Disposition": `attachment; filename="greaseledger-incidents-${day}.${format}"`,
