@@ -4,8 +4,9 @@ import type { z } from "zod";
 import type { Action } from "@/lib/domain/permissions";
 import type { ActionState } from "@/lib/validation/action-state";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
-import { requireActionUser } from "./auth";
+import { getCurrentSession, requireActionUser } from "./auth";
 import { AppError, ValidationError, toAppError } from "./errors";
+import { withRequestContext } from "./request-context";
 import type { SessionUser } from "./session";
 
 /**
@@ -21,7 +22,10 @@ export async function runAction<S extends z.ZodType>(
     const user = await requireActionUser(options.action);
     const parsed = options.schema.safeParse(input);
     if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
-    await work(parsed.data, user);
+    const session = await getCurrentSession();
+    const siteIds = session?.user.id === user.id ? session.siteIds : undefined;
+    if (siteIds) await withRequestContext({ userId: user.id, siteIds }, () => work(parsed.data, user));
+    else await work(parsed.data, user);
     for (const path of options.revalidate ?? []) revalidatePath(path);
     return { status: "success", message: options.success };
   } catch (error) {

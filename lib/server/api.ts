@@ -12,6 +12,7 @@ import {
 } from "./errors";
 import { log } from "./log";
 import { crossOriginProblem } from "./request";
+import { withRequestContext } from "./request-context";
 import { sessionCookie, validateSessionToken, type SessionUser } from "./session";
 
 const MAX_JSON_BYTES = 256 * 1024;
@@ -49,10 +50,12 @@ export function apiRoute<P = Record<string, string>, S extends z.ZodType | undef
       }
 
       let user: SessionUser | null = null;
+      let siteIds: number[] = [];
       if (!options.public) {
         const session = await validateSessionToken(request.cookies.get(sessionCookie().name)?.value);
         if (!session) throw new UnauthorizedError();
         user = session.user;
+        siteIds = session.siteIds;
         if (!options.action || !can(user.role, options.action)) {
           log("warn", "forbidden", { userId: user.id, action: options.action, path: request.nextUrl.pathname });
           throw new ForbiddenError();
@@ -63,12 +66,14 @@ export function apiRoute<P = Record<string, string>, S extends z.ZodType | undef
       if (options.body) body = await readJson(request, options.body);
 
       const params = (await context.params) ?? ({} as P);
-      return await handler({
-        request,
-        user: user as SessionUser,
-        body: body as S extends z.ZodType ? z.output<S> : undefined,
-        params,
-      });
+      const run = () =>
+        handler({
+          request,
+          user: user as SessionUser,
+          body: body as S extends z.ZodType ? z.output<S> : undefined,
+          params,
+        });
+      return await (user ? withRequestContext({ userId: user.id, siteIds }, run) : run());
     } catch (error) {
       return errorResponse(error);
     }

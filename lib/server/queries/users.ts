@@ -9,6 +9,7 @@ import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
 import { enqueueMail } from "../mail/outbox";
 import { hashPassword } from "../passwords";
+import { knownSiteIds } from "../request-context";
 import { invalidateUserSessions } from "../session";
 
 /** How long an invitation link can be used. */
@@ -70,6 +71,8 @@ export async function listUsers(): Promise<UserListItem[]> {
 
 /** The site ids a user may see. Inside a transaction pass it, so the query does not wait for a second pool connection. */
 export async function userSiteIds(userId: string, transaction?: Transaction): Promise<number[]> {
+  const known = knownSiteIds(userId);
+  if (known) return known;
   const rows = await getSequelize().query<{ site_id: number }>(
     "SELECT site_id FROM user_site_access WHERE user_id = ?",
     { replacements: [userId], type: QueryTypes.SELECT, transaction },
