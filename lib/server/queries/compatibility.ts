@@ -18,7 +18,7 @@ import { appendAudit } from "../audit";
 import { boundModels, getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
-import { getGrease, listGreases, type GreaseDto } from "./greases";
+import { getGrease, greaseProfiles, listGreases, type GreaseDto } from "./greases";
 import { userSiteIds } from "./users";
 
 export interface SiteCompatibilitySettings extends CompatibilitySettings, MixtureTestSettings {
@@ -232,23 +232,22 @@ export function profileOf(grease: GreaseDto): GreaseProfile {
   };
 }
 
-async function resolve(ref: GreaseRef, field: string): Promise<GreaseProfile> {
-  if ("greaseId" in ref) {
-    const grease = await getGrease(ref.greaseId);
-    if (!grease) throw new ValidationError({ [`${field}.greaseId`]: ["No grease with this id."] });
-    return profileOf(grease);
-  }
-  return { ...ref.profile, productId: null, name: undefined };
-}
-
 /** The engine's verdict for two greases (catalogue ids or typed-in profiles) under the caller's site settings. */
 export async function evaluatePair(input: EvaluateInput, userId: string): Promise<MixResult> {
-  const [a, b] = await Promise.all([resolve(input.a, "a"), resolve(input.b, "b")]);
-  const settings = await settingsForUser(userId, input.siteId);
-  const evidence =
-    typeof a.productId === "number" && typeof b.productId === "number" && a.productId !== b.productId
-      ? await listEvidence({ pair: [a.productId, b.productId] })
-      : [];
+  const ids = [input.a, input.b].flatMap((ref) => ("greaseId" in ref ? [ref.greaseId] : []));
+  const pair = ids.length === 2 && ids[0] !== ids[1] ? ([ids[0], ids[1]] as [number, number]) : null;
+  const [profiles, settings, evidence] = await Promise.all([
+    greaseProfiles(ids),
+    settingsForUser(userId, input.siteId),
+    pair ? listEvidence({ pair }) : Promise.resolve([]),
+  ]);
+  const resolve = (ref: GreaseRef, field: string): GreaseProfile => {
+    if (!("greaseId" in ref)) return { ...ref.profile, productId: null, name: undefined };
+    const profile = profiles.get(ref.greaseId);
+    if (!profile) throw new ValidationError({ [`${field}.greaseId`]: ["No grease with this id."] });
+    return profile;
+  };
+  const [a, b] = [resolve(input.a, "a"), resolve(input.b, "b")];
   return evaluateMix(
     a,
     b,

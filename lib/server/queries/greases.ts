@@ -1,5 +1,6 @@
 import "server-only";
-import { Op, type Transaction } from "sequelize";
+import { Op, QueryTypes, type Transaction } from "sequelize";
+import type { GreaseProfile } from "@/lib/domain/compatibility";
 import type {
   BaseOilType,
   FoodGrade,
@@ -114,6 +115,39 @@ export async function getGrease(id: number, transaction?: Transaction): Promise<
   if (!grease) return null;
   const packs = await GreasePack.findAll({ where: { greaseId: id }, transaction });
   return toDto(grease, grease.supplier?.name ?? "", packs);
+}
+
+/** The compatibility profiles of some greases, by id, in one statement (the engine needs nothing else). */
+export async function greaseProfiles(ids: number[]): Promise<Map<number, GreaseProfile>> {
+  if (!ids.length) return new Map();
+  const rows = await getSequelize().query<{
+    id: number;
+    name: string;
+    thickener: Thickener;
+    base_oil_type: BaseOilType;
+    viscosity_40: string | number;
+    nlgi_grade: NlgiGrade;
+    food_grade: FoodGrade;
+    solid_additives: string;
+  }>(
+    "SELECT id, name, thickener, base_oil_type, viscosity_40, nlgi_grade, food_grade, solid_additives FROM grease WHERE id IN (?)",
+    { replacements: [[...new Set(ids)]], type: QueryTypes.SELECT },
+  );
+  return new Map(
+    rows.map((g) => [
+      Number(g.id),
+      {
+        productId: Number(g.id),
+        name: g.name,
+        thickener: g.thickener,
+        baseOilType: g.base_oil_type,
+        viscosity40: Number(g.viscosity_40),
+        nlgiGrade: g.nlgi_grade,
+        foodGrade: g.food_grade,
+        solidAdditives: g.solid_additives ? (g.solid_additives.split(",").filter(Boolean) as SolidAdditive[]) : [],
+      },
+    ]),
+  );
 }
 
 export async function requireGrease(id: number): Promise<GreaseDto> {

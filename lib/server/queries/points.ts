@@ -1,10 +1,11 @@
 import "server-only";
 import { QueryTypes, type Transaction } from "sequelize";
 import { evaluateMix, type MixResult } from "@/lib/domain/compatibility";
-import { dueState, nextDueAt, type DueState } from "@/lib/domain/relubrication";
+import { DEFAULT_DUE_WINDOW_HOURS, dueState, nextDueAt, type DueState } from "@/lib/domain/relubrication";
 import { quantityFlag, type QuantityFlag } from "@/lib/domain/service";
 import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
+import { selectRows } from "../mysql-pool";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { idempotent, type StoredAnswer } from "../idempotency";
 import { log } from "../log";
@@ -53,29 +54,55 @@ export function pointDue(next: Date | null, sealed: boolean, now: Date): DueStat
   return sealed ? "ok" : dueState({ nextDueAt: next ? new Date(next) : null, now });
 }
 
-/** Lube points of the caller's sites (one statement), optionally one site and one due state, in route order. */
+/**
+ * The SQL condition that narrows a due-state filter (the engine's `dueState` stays the judge of each row): overdue
+ * is past its due time, due is inside the window before it or never serviced, ok is later or sealed for life.
+ */
+function dueCondition(due: DueState | undefined, now: Date): { sql: string; params: Date[] } {
+  const windowEnd = new Date(now.getTime() + DEFAULT_DUE_WINDOW_HOURS * 3_600_000);
+  switch (due) {
+    case "overdue":
+      return { sql: "AND p.sealed_for_life = 0 AND p.next_due_at < ?", params: [now] };
+    case "due":
+      return { sql: "AND p.sealed_for_life = 0 AND (p.next_due_at IS NULL OR p.next_due_at BETWEEN ? AND ?)", params: [now, windowEnd] };
+    case "ok":
+      return { sql: "AND (p.sealed_for_life = 1 OR p.next_due_at > ?)", params: [windowEnd] };
+    default:
+      return { sql: "", params: [] };
+  }
+}
+
+/**
+ * Lube points of the caller's sites (one statement), optionally one site and one due state, in route order. The due
+ * time comes back as epoch milliseconds, and the rows through the plain pool (`selectRows`): long lists stay close
+ * to the time of their SQL.
+ */
 export async function listPoints(userId: string, filter: { siteId?: number; due?: DueState } = {}, now = new Date()): Promise<PointListItem[]> {
   const sites = await userSiteIds(userId);
   const chosen = filter.siteId !== undefined ? sites.filter((s) => s === filter.siteId) : sites;
   if (!chosen.length) return [];
-  const rows = await getSequelize().query<PointRow>(
+  const due = dueCondition(filter.due, now);
+  const rows = await selectRows<Omit<PointRow, "next_due_at"> & { next_due_ms: string | number | null }>(
     `SELECT p.id, p.site_id, p.tag_code, p.name, a.name AS asset_name, a.tag AS asset_tag, ar.name AS area_name, s.name AS site_name,
-            p.next_due_at, p.sealed_for_life, p.route_order
+            ROUND(UNIX_TIMESTAMP(p.next_due_at) * 1000) AS next_due_ms, p.sealed_for_life, p.route_order
      FROM lube_point p JOIN asset a ON a.id = p.asset_id JOIN area ar ON ar.id = a.area_id JOIN site s ON s.id = p.site_id
-     WHERE p.site_id IN (:sites)
+     WHERE p.site_id IN (?) ${due.sql}
      ORDER BY s.name, ar.sort_order, ar.name, p.route_order, p.id`,
-    { replacements: { sites: chosen }, type: QueryTypes.SELECT },
+    [chosen, ...due.params],
   );
-  const items = rows.map((r) => ({
-    tag: r.tag_code,
-    name: r.name,
-    asset: `${r.asset_tag} ${r.asset_name}`,
-    area: r.area_name,
-    site: r.site_name,
-    due: pointDue(r.next_due_at, Boolean(r.sealed_for_life), now),
-    nextDueAt: iso(r.next_due_at),
-    sealedForLife: Boolean(r.sealed_for_life),
-  }));
+  const items = rows.map((r) => {
+    const next = r.next_due_ms === null ? null : new Date(Number(r.next_due_ms));
+    return {
+      tag: r.tag_code,
+      name: r.name,
+      asset: `${r.asset_tag} ${r.asset_name}`,
+      area: r.area_name,
+      site: r.site_name,
+      due: pointDue(next, Boolean(r.sealed_for_life), now),
+      nextDueAt: next ? next.toISOString() : null,
+      sealedForLife: Boolean(r.sealed_for_life),
+    };
+  });
   return filter.due ? items.filter((i) => i.due === filter.due) : items;
 }
 
@@ -127,24 +154,29 @@ export interface PointDetail {
 
 const n = (v: unknown) => (v === null || v === undefined ? null : Number(v));
 
-/** A point by its tag code, only when it belongs to one of the caller's sites (otherwise 404). */
+/**
+ * A point by its tag code, only when it belongs to one of the caller's sites (otherwise 404). One statement reads the
+ * point with its asset, area, site, greases and open changeover. With `lock`, the point row alone is locked first
+ * (a locking read over the joins would also lock the site, area and grease rows that every other service shares).
+ */
 export async function getPointByTag(tag: string, userId: string, now = new Date(), transaction?: Transaction, lock = false): Promise<PointDetail> {
   const sites = await userSiteIds(userId, transaction);
+  if (lock) await getSequelize().query("SELECT id FROM lube_point WHERE tag_code = ? FOR UPDATE", { replacements: [tag], type: QueryTypes.SELECT, transaction });
   const [r] = await getSequelize().query<Record<string, unknown>>(
     `SELECT p.*, a.name AS asset_name, a.tag AS asset_tag, a.kind AS asset_kind, ar.name AS area_name, s.name AS site_name,
-            ga.code AS ga_code, ga.name AS ga_name, gc.code AS gc_code, gc.name AS gc_name
+            ga.code AS ga_code, ga.name AS ga_name, gc.code AS gc_code, gc.name AS gc_name,
+            c.id AS co_id, c.from_grease_id AS co_from_grease_id, c.to_grease_id AS co_to_grease_id, c.method AS co_method,
+            c.services_done AS co_services_done, c.services_planned AS co_services_planned, c.state AS co_state,
+            c.shortened_interval_hours AS co_shortened_interval_hours,
+            gf.code AS gf_code, gf.name AS gf_name, gt.code AS gt_code, gt.name AS gt_name
      FROM lube_point p JOIN asset a ON a.id = p.asset_id JOIN area ar ON ar.id = a.area_id JOIN site s ON s.id = p.site_id
      LEFT JOIN grease ga ON ga.id = p.assigned_grease_id LEFT JOIN grease gc ON gc.id = p.current_grease_id
-     WHERE p.tag_code = ? ${lock ? "FOR UPDATE" : ""}`,
+     LEFT JOIN changeover c ON c.id = (SELECT MAX(c2.id) FROM changeover c2 WHERE c2.point_id = p.id AND c2.state IN ('planned','in_progress'))
+     LEFT JOIN grease gf ON gf.id = c.from_grease_id LEFT JOIN grease gt ON gt.id = c.to_grease_id
+     WHERE p.tag_code = ?`,
     { replacements: [tag], type: QueryTypes.SELECT, transaction },
   );
   if (!r || !sites.includes(Number(r.site_id))) throw new NotFoundError("No lube point with this tag on your sites.");
-  const [co] = await getSequelize().query<Record<string, unknown>>(
-    `SELECT c.*, gf.code AS gf_code, gf.name AS gf_name, gt.code AS gt_code, gt.name AS gt_name FROM changeover c
-     LEFT JOIN grease gf ON gf.id = c.from_grease_id JOIN grease gt ON gt.id = c.to_grease_id
-     WHERE c.point_id = ? AND c.state IN ('planned','in_progress') ORDER BY c.id DESC LIMIT 1`,
-    { replacements: [r.id], type: QueryTypes.SELECT, transaction },
-  );
   const ref = (id: unknown, code: unknown, name: unknown): GreaseRefDto | null =>
     id === null || id === undefined ? null : { id: Number(id), code: String(code), name: String(name) };
   const next = (r.next_due_at as Date | null) ?? null;
@@ -186,18 +218,19 @@ export async function getPointByTag(tag: string, userId: string, now = new Date(
     lastServicedAt: iso(r.last_serviced_at as Date | null),
     nextDueAt: iso(next),
     due: pointDue(next, Boolean(r.sealed_for_life), now),
-    changeover: co
-      ? {
-          id: Number(co.id),
-          fromGrease: ref(co.from_grease_id, co.gf_code, co.gf_name),
-          toGrease: ref(co.to_grease_id, co.gt_code, co.gt_name)!,
-          method: String(co.method),
-          servicesDone: Number(co.services_done),
-          servicesPlanned: Number(co.services_planned),
-          state: String(co.state),
-          shortenedIntervalHours: n(co.shortened_interval_hours),
-        }
-      : null,
+    changeover:
+      r.co_id !== null && r.co_id !== undefined
+        ? {
+            id: Number(r.co_id),
+            fromGrease: ref(r.co_from_grease_id, r.gf_code, r.gf_name),
+            toGrease: ref(r.co_to_grease_id, r.gt_code, r.gt_name)!,
+            method: String(r.co_method),
+            servicesDone: Number(r.co_services_done),
+            servicesPlanned: Number(r.co_services_planned),
+            state: String(r.co_state),
+            shortenedIntervalHours: n(r.co_shortened_interval_hours),
+          }
+        : null,
   };
 }
 
