@@ -64,10 +64,7 @@ export async function appendAudit(
       transaction,
     },
   );
-  await sequelize.query("UPDATE audit_head SET seq = ?, hash = ? WHERE id = 1", {
-    replacements: [entry.seq, hash],
-    transaction,
-  });
+  // The insert moves the chain head (trigger audit_log_follows_head, which also refuses an entry that does not follow it).
   return { seq: entry.seq, hash };
 }
 

@@ -1,12 +1,18 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { QueryTypes, type Transaction } from "sequelize";
+import { appendAudit, type AuditEvent } from "./audit";
 import { getSequelize } from "./db";
 import { AppError, ConflictError, ValidationError } from "./errors";
 
 export interface StoredAnswer {
   status: number;
   body: unknown;
+}
+
+/** What the work of an idempotent request answers; its audit entry, if any, is appended after the answer is stored. */
+export interface WorkAnswer extends StoredAnswer {
+  audit?: { event: AuditEvent; at: Date };
 }
 
 const canonical = (value: unknown): string =>
@@ -39,7 +45,7 @@ const errno = (error: unknown) => (error as { original?: { errno?: number } }).o
  */
 export async function idempotent(
   options: { userId: string; key: string | null; scope: string; body: unknown },
-  work: (transaction: Transaction) => Promise<StoredAnswer>,
+  work: (transaction: Transaction) => Promise<WorkAnswer>,
 ): Promise<StoredAnswer> {
   const sequelize = getSequelize();
   const hash = requestHash(options.scope, options.body);
@@ -59,7 +65,9 @@ export async function idempotent(
             transaction,
           });
         }
-        return answer;
+        // Last, so the audit chain head (one lock for every audited write) is held only until the commit.
+        if (answer.audit) await appendAudit(answer.audit.event, transaction, answer.audit.at);
+        return { status: answer.status, body: answer.body };
       });
     } catch (error) {
       if (options.key && isDuplicate(error)) {

@@ -5,6 +5,7 @@ import * as m0004 from "./0004-stock";
 import * as m0005 from "./0005-stock-work";
 import * as m0006 from "./0006-audit";
 import * as m0007 from "./0007-incident-work";
+import * as m0008 from "./0008-audit-head-trigger";
 
 /**
  * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
@@ -19,4 +20,5 @@ export const MIGRATIONS = [
   { name: "0005-stock-work.ts", ...m0005 },
   { name: "0006-audit.ts", ...m0006 },
   { name: "0007-incident-work.ts", ...m0007 },
+  { name: "0008-audit-head-trigger.ts", ...m0008 },
 ];

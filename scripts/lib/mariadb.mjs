@@ -161,6 +161,8 @@ export async function provisionDatabase({ socket, database, user, password, owne
 
 /** Tables the app may read and append to, never change: the audit trail (issue: tamper-evident log). */
 export const APPEND_ONLY_TABLES = ["audit_log"];
+/** Tables the app may only read: the audit chain head, which moves only when an entry is appended (a trigger). */
+export const READ_ONLY_TABLES = ["audit_head"];
 
 /**
  * Gives the app's account exactly what it needs, table by table: read and write everywhere, but only read and
@@ -178,7 +180,11 @@ export async function grantAppPrivileges({ socket, database, user }) {
     .filter(Boolean);
   const account = `${literal(user)}@'127.0.0.1'`;
   const grants = tables.map((table) => {
-    const rights = APPEND_ONLY_TABLES.includes(table) ? "SELECT, INSERT" : "SELECT, INSERT, UPDATE, DELETE";
+    const rights = READ_ONLY_TABLES.includes(table)
+      ? "SELECT"
+      : APPEND_ONLY_TABLES.includes(table)
+        ? "SELECT, INSERT"
+        : "SELECT, INSERT, UPDATE, DELETE";
     return `GRANT ${rights} ON ${ident(database)}.${ident(table)} TO ${account};`;
   });
   await sql(`REVOKE ALL PRIVILEGES, GRANT OPTION FROM ${account};\n${grants.join("\n")}\nFLUSH PRIVILEGES;`);

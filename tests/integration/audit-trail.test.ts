@@ -50,6 +50,10 @@ describe("the audit trail of the running app", () => {
       await expect(conn.query("DROP TRIGGER audit_log_no_update")).rejects.toMatchObject({
         errno: expect.any(Number),
       });
+      // The chain head moves only by appending (trigger audit_log_follows_head): no direct change by the app.
+      await expect(conn.query("UPDATE audit_head SET seq = seq + 1 WHERE id = 1")).rejects.toMatchObject({
+        errno: 1142,
+      });
       await expect(conn.query("ALTER TABLE stock_lot ADD COLUMN x INT")).rejects.toMatchObject({
         errno: 1142,
       });
@@ -60,6 +64,19 @@ describe("the audit trail of the running app", () => {
     } finally {
       await conn.end();
     }
+  });
+
+  it("an entry that does not follow the chain head is refused, even from a privileged account", async () => {
+    const [head] = await rootQuery<{ seq: number; hash: string }>("SELECT seq, hash FROM audit_head WHERE id = 1");
+    const insert = (seq: number, prev: string) =>
+      rootQuery(
+        "INSERT INTO audit_log (seq, at, actor_id, site_id, event, subject_type, subject_id, payload_json, prev_hash, hash) VALUES (?, NOW(3), NULL, NULL, 'test.forged', NULL, NULL, '{}', ?, ?)",
+        [seq, prev, "f".repeat(64)],
+      );
+    await expect(insert(Number(head!.seq) + 2, head!.hash)).rejects.toMatchObject({ errno: 1644 });
+    await expect(insert(Number(head!.seq) + 1, "0".repeat(64))).rejects.toMatchObject({ errno: 1644 });
+    const [forged] = await rootQuery<{ n: number }>("SELECT COUNT(*) AS n FROM audit_log WHERE event = 'test.forged'");
+    expect(Number(forged!.n)).toBe(0);
   });
 
   it("even a privileged account meets the triggers: entries are not updated or deleted in place", async () => {

@@ -113,51 +113,54 @@ async function onHandGrams(siteId: number, greaseId: number, transaction: Transa
   return Number(row?.grams ?? 0);
 }
 
+type PolicyRow = { reorder_point_grams: string | null; safety_stock_weeks: string | null };
+type DemandRow = {
+  kind: "point" | "purge";
+  quantity_grams: string | null;
+  interval_hours: string | null;
+  running_hours_per_day: string | null;
+  sealed_for_life: number | null;
+  remaining: number | null;
+};
+
 /**
- * A grease's reorder point at a site: the lead's fixed value when set, else demand during the supplier's lead
- * time plus safety stock, with the demand forecast from the lube points that use the grease.
+ * What drives a grease's demand at a site, in one statement: the lube points it is assigned to, and the purges still
+ * to come of changeovers to it. A changeover under way purges the new grease through its point at each remaining
+ * planned service; each is counted at the point's planned quantity (common practice, no source: a purge often
+ * takes more).
  */
-export async function reorderPointGrams(
-  siteId: number,
+async function demandRows(siteId: number, greaseId: number, transaction?: Transaction): Promise<DemandRow[]> {
+  return getSequelize().query<DemandRow>(
+    `SELECT 'point' AS kind, quantity_grams, interval_hours, running_hours_per_day, sealed_for_life, NULL AS remaining
+     FROM lube_point WHERE site_id = :site AND assigned_grease_id = :grease
+     UNION ALL
+     SELECT 'purge', p.quantity_grams, NULL, NULL, NULL, c.services_planned - c.services_done FROM changeover c JOIN lube_point p ON p.id = c.point_id
+     WHERE p.site_id = :site AND c.to_grease_id = :grease AND c.state IN ('planned','in_progress') AND c.services_planned > c.services_done`,
+    { replacements: { site: siteId, grease: greaseId }, type: QueryTypes.SELECT, transaction },
+  );
+}
+
+/** The reorder point from the policy row and the demand rows: the lead's fixed value, else lead-time demand plus safety stock. */
+function reorderPointOf(
   greaseId: number,
+  policy: PolicyRow | undefined,
+  rows: DemandRow[],
   leadTimeDays: number,
   now: Date,
-  transaction?: Transaction,
-): Promise<{ grams: number; gramsPerWeek: number }> {
-  const sequelize = getSequelize();
-  const [policy] = await sequelize.query<{
-    reorder_point_grams: string | null;
-    safety_stock_weeks: string | null;
-  }>("SELECT reorder_point_grams, safety_stock_weeks FROM stock_policy WHERE site_id = ? AND grease_id = ?", {
-    replacements: [siteId, greaseId],
-    type: QueryTypes.SELECT,
-    transaction,
-  });
-  const points = await sequelize.query<{
-    quantity_grams: string | null;
-    interval_hours: string | null;
-    running_hours_per_day: string;
-    sealed_for_life: number;
-  }>(
-    "SELECT quantity_grams, interval_hours, running_hours_per_day, sealed_for_life FROM lube_point WHERE site_id = ? AND assigned_grease_id = ?",
-    { replacements: [siteId, greaseId], type: QueryTypes.SELECT, transaction },
-  );
-  // A changeover under way purges the new grease through its point at each remaining planned service; each is
-  // counted at the point's planned quantity (common practice, no source: a purge often takes more).
-  const purges = await sequelize.query<{ remaining: number; quantity_grams: string | null }>(
-    `SELECT c.services_planned - c.services_done AS remaining, p.quantity_grams FROM changeover c JOIN lube_point p ON p.id = c.point_id
-     WHERE p.site_id = ? AND c.to_grease_id = ? AND c.state IN ('planned','in_progress') AND c.services_planned > c.services_done`,
-    { replacements: [siteId, greaseId], type: QueryTypes.SELECT, transaction },
-  );
+): { grams: number; gramsPerWeek: number } {
   const demand = weeklyDemand(
-    points.map((p) => ({
-      greaseId,
-      quantityGrams: Number(p.quantity_grams ?? 0),
-      intervalHours: Number(p.interval_hours ?? 0),
-      runningHoursPerDay: Number(p.running_hours_per_day),
-      sealedForLife: Boolean(p.sealed_for_life),
-    })),
-    purges.map((c) => ({ greaseId, grams: Number(c.remaining) * Number(c.quantity_grams ?? 0), on: now })),
+    rows
+      .filter((r) => r.kind === "point")
+      .map((p) => ({
+        greaseId,
+        quantityGrams: Number(p.quantity_grams ?? 0),
+        intervalHours: Number(p.interval_hours ?? 0),
+        runningHoursPerDay: Number(p.running_hours_per_day),
+        sealedForLife: Boolean(p.sealed_for_life),
+      })),
+    rows
+      .filter((r) => r.kind === "purge")
+      .map((c) => ({ greaseId, grams: Number(c.remaining) * Number(c.quantity_grams ?? 0), on: now })),
     { from: now },
   ).get(greaseId);
   const gramsPerWeek = demand?.gramsPerWeek ?? 0;
@@ -169,6 +172,92 @@ export async function reorderPointGrams(
     safetyStockWeeks: policy?.safety_stock_weeks ? Number(policy.safety_stock_weeks) : undefined,
   });
   return { grams: rp.reorderPointGrams, gramsPerWeek };
+}
+
+/**
+ * A grease's reorder point at a site: the lead's fixed value when set, else demand during the supplier's lead
+ * time plus safety stock, with the demand forecast from the lube points that use the grease.
+ */
+export async function reorderPointGrams(
+  siteId: number,
+  greaseId: number,
+  leadTimeDays: number,
+  now: Date,
+  transaction?: Transaction,
+): Promise<{ grams: number; gramsPerWeek: number }> {
+  const [[policy], rows] = await Promise.all([
+    getSequelize().query<PolicyRow>(
+      "SELECT reorder_point_grams, safety_stock_weeks FROM stock_policy WHERE site_id = ? AND grease_id = ?",
+      { replacements: [siteId, greaseId], type: QueryTypes.SELECT, transaction },
+    ),
+    demandRows(siteId, greaseId, transaction),
+  ]);
+  return reorderPointOf(greaseId, policy, rows, leadTimeDays, now);
+}
+
+/** What the low-stock check needs about a grease at a site, read before or after a movement. */
+export interface LowStockFacts {
+  pack: { grams: number; kind: string; name: string; code: string; supplierEmail: string | null; leadTimeDays: number };
+  reorderPointGrams: number;
+  gramsPerWeek: number;
+  onHandGrams: number;
+  episodeOpen: boolean;
+}
+
+/**
+ * Reads, in two statements, what the low-stock check needs: pack, supplier, policy, grams on hand and whether an
+ * episode is open; then the demand. Plain reads: inside a transaction they see its snapshot and its own changes.
+ */
+export async function lowStockFacts(
+  siteId: number,
+  greaseId: number,
+  packId: number,
+  now: Date,
+  transaction: Transaction,
+): Promise<LowStockFacts> {
+  const [facts] = await getSequelize().query<{
+    net_mass_grams: number;
+    kind: string;
+    name: string;
+    code: string;
+    supplier_email: string | null;
+    lead_time_days: number | null;
+    reorder_point_grams: string | null;
+    safety_stock_weeks: string | null;
+    on_hand_grams: string | null;
+    open_episode_id: number | null;
+  }>(
+    `SELECT p.net_mass_grams, p.kind, g.name, g.code, s.contact_email AS supplier_email, s.lead_time_days,
+            sp.reorder_point_grams, sp.safety_stock_weeks,
+            (SELECT SUM(l.on_hand * lp.net_mass_grams) FROM stock_lot l JOIN grease_pack lp ON lp.id = l.pack_id
+             WHERE l.site_id = :site AND l.grease_id = :grease) AS on_hand_grams,
+            (SELECT e.id FROM low_stock_episode e WHERE e.open_key = :openKey) AS open_episode_id
+     FROM grease_pack p JOIN grease g ON g.id = p.grease_id JOIN supplier s ON s.id = g.supplier_id
+     LEFT JOIN stock_policy sp ON sp.site_id = :site AND sp.grease_id = p.grease_id
+     WHERE p.id = :pack AND p.grease_id = :grease`,
+    {
+      replacements: { site: siteId, grease: greaseId, pack: packId, openKey: `${siteId}:${greaseId}` },
+      type: QueryTypes.SELECT,
+      transaction,
+    },
+  );
+  if (!facts) throw new ValidationError({ packId: ["This pack does not belong to this grease."] });
+  const leadTimeDays = facts.lead_time_days === null ? 14 : Number(facts.lead_time_days);
+  const rp = reorderPointOf(greaseId, facts, await demandRows(siteId, greaseId, transaction), leadTimeDays, now);
+  return {
+    pack: {
+      grams: Number(facts.net_mass_grams),
+      kind: facts.kind,
+      name: facts.name,
+      code: facts.code,
+      supplierEmail: facts.supplier_email,
+      leadTimeDays,
+    },
+    reorderPointGrams: rp.grams,
+    gramsPerWeek: rp.gramsPerWeek,
+    onHandGrams: Number(facts.on_hand_grams ?? 0),
+    episodeOpen: facts.open_episode_id !== null,
+  };
 }
 
 /**
@@ -184,23 +273,34 @@ export async function checkLowStock(
   now: Date,
   transaction: Transaction,
 ): Promise<void> {
+  const facts = await lowStockFacts(siteId, greaseId, packId, now, transaction);
+  await settleLowStock(facts, siteId, greaseId, packId, userId, now, transaction);
+}
+
+/**
+ * The writing half of the low-stock check, from facts read in the same transaction (`facts.onHandGrams` must already
+ * count the movement): closes an open episode when stock is back above its reorder point, or opens one with its
+ * purchase request and mail when it has fallen below.
+ */
+export async function settleLowStock(
+  facts: LowStockFacts,
+  siteId: number,
+  greaseId: number,
+  packId: number,
+  userId: string,
+  now: Date,
+  transaction: Transaction,
+): Promise<void> {
   const sequelize = getSequelize();
-  const pack = await packOf(greaseId, packId, transaction);
-  const { grams: rpGrams, gramsPerWeek } = await reorderPointGrams(
-    siteId,
-    greaseId,
-    pack.leadTimeDays,
-    now,
-    transaction,
-  );
-  const grams = await onHandGrams(siteId, greaseId, transaction);
   const openKey = `${siteId}:${greaseId}`;
+  const { pack, reorderPointGrams: rpGrams, gramsPerWeek, onHandGrams: grams } = facts;
   const low = isBelowReorderPoint(grams, rpGrams);
   if (!low) {
-    await sequelize.query("UPDATE low_stock_episode SET ended_at = ?, open_key = NULL WHERE open_key = ?", {
-      replacements: [now, openKey],
-      transaction,
-    });
+    if (facts.episodeOpen)
+      await sequelize.query("UPDATE low_stock_episode SET ended_at = ?, open_key = NULL WHERE open_key = ?", {
+        replacements: [now, openKey],
+        transaction,
+      });
     return;
   }
   const [open] = await sequelize.query<{ id: number }>(
@@ -549,6 +649,9 @@ export async function issueStock(
     const sites = location ? [location.siteId] : await userSiteIds(userId, transaction);
     if (!sites.length)
       throw new ValidationError({ location: ["You have no site; ask an administrator for access."] });
+    // With the site known, the low-stock facts are read before any lot is locked (the same snapshot the check would
+    // read after the movement, less the movement itself), so the lots stay locked for fewer statements.
+    const early = location ? await lowStockFacts(location.siteId, input.greaseId, input.packId, now, transaction) : null;
     let pointId: number | null = null;
     const warnings: string[] = [];
     let picks: { row: LotRow; quantity: number }[];
@@ -667,7 +770,17 @@ export async function issueStock(
         transaction,
       );
     }
-    await checkLowStock(siteId, input.greaseId, input.packId, userId, now, transaction);
+    if (early)
+      await settleLowStock(
+        { ...early, onHandGrams: early.onHandGrams - input.quantity * early.pack.grams },
+        siteId,
+        input.greaseId,
+        input.packId,
+        userId,
+        now,
+        transaction,
+      );
+    else await checkLowStock(siteId, input.greaseId, input.packId, userId, now, transaction);
     log("info", "stock_issued", {
       greaseId: input.greaseId,
       quantity: input.quantity,
@@ -675,8 +788,9 @@ export async function issueStock(
       by: userId,
       to: input.issuedToUserId ?? null,
     });
-    await appendAudit(
-      {
+    const audit = {
+      at: now,
+      event: {
         event: "stock.issued",
         actorId: userId,
         siteId,
@@ -690,10 +804,9 @@ export async function issueStock(
           pointId,
         },
       },
-      transaction,
-      now,
-    );
+    };
     return {
+      audit,
       status: 201,
       body: {
         issued: picks.map((p) => ({
