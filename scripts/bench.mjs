@@ -131,9 +131,8 @@ async function captureStatements(rootConn, fn) {
     await rootConn.query("SET GLOBAL general_log = 0");
   }
   const rows = await rootConn.query(
-    "SELECT event_time, CONVERT(argument USING utf8mb4) AS statement FROM mysql.general_log WHERE command_type IN ('Query', 'Execute') AND user_host LIKE 'app[%'",
+    "SELECT CONVERT(argument USING utf8mb4) AS statement FROM mysql.general_log WHERE command_type IN ('Query', 'Execute') AND user_host LIKE 'app[%'",
   );
-  if (process.env.EXP) for (const r of rows) console.log("EXP", r.event_time, String(r.statement).slice(0, 70).replace(/\s+/g, " "));
   await rootConn.query("TRUNCATE TABLE mysql.general_log");
   return rows.map((r) => String(r.statement));
 }
