@@ -14,6 +14,7 @@ export const PERMISSION_TABLE: Readonly<Record<Action, readonly Role[]>> = {
   "points.read": ["admin", "lead", "clerk", "technician", "auditor"],
   "points.write": ["admin", "lead"],
   "service.record": ["lead", "technician"],
+  "services.export": ["admin", "lead", "auditor"],
   "stock.read": ["admin", "lead", "clerk", "technician", "auditor"],
   "stock.receive": ["lead", "clerk"],
   "stock.issue": ["lead", "clerk", "technician"],

@@ -20,6 +20,7 @@ export const ACTIONS = [
   "points.read",
   "points.write",
   "service.record",
+  "services.export",
   "stock.read",
   "stock.receive",
   "stock.issue",

@@ -17,6 +17,7 @@ const EXPECTED: Record<Action, string> = {
   "points.read": "ALCTU",
   "points.write": "AL",
   "service.record": "LT",
+  "services.export": "ALU",
   "stock.read": "ALCTU",
   "stock.receive": "LC",
   "stock.issue": "LCT",

@@ -1,0 +1,319 @@
+import "server-only";
+import { QueryTypes } from "sequelize";
+import { csvField, csvRecord, neutraliseCell } from "@/lib/csv";
+import type { ServiceExportQuery } from "@/lib/validation/service-export";
+import { appendAudit } from "./audit";
+import { getSequelize, statementCounter } from "./db";
+import { ForbiddenError } from "./errors";
+import { log } from "./log";
+import { getBulkReadPool } from "./mariadb-pool";
+import { userSiteIds } from "./queries/users";
+
+/** Rows read per SQL statement: large enough that the per-statement cost disappears, small enough to stay flat. */
+export const SERVICE_EXPORT_PAGE_SIZE = 5000;
+
+/**
+ * What one export reads: the sites (already limited to the caller's), the period as UTC instants (end excluded),
+ * and the service ids in it as they were when the export began (`lastId`), so services recorded while the file
+ * streams are not half in it and the row count sent first stays true.
+ */
+export interface ServiceExportScope {
+  siteIds: number[];
+  /** `YYYY-MM-DD 00:00:00`, UTC, included. */
+  start: string;
+  /** The day after `to`, `YYYY-MM-DD 00:00:00`, UTC, excluded. */
+  end: string;
+  /** Ids in the period lie in (firstId - 1, lastId]; 0 and 0 when the period is empty. */
+  firstId: number;
+  lastId: number;
+  total: number;
+}
+
+const dayAfter = (day: string) =>
+  new Date(Date.parse(`${day}T00:00:00Z`) + 86_400_000).toISOString().slice(0, 10);
+
+/**
+ * The sites an export may read (the caller's sites, or the one asked for if the caller has it; any other is a 403
+ * naming the site) and the services of the period in them: count and id range, read from the (site_id, performed_at)
+ * index alone (InnoDB keeps the primary key in every secondary index).
+ */
+export async function serviceExportScope(
+  userId: string,
+  query: ServiceExportQuery,
+): Promise<ServiceExportScope> {
+  const own = await userSiteIds(userId);
+  if (query.siteId !== undefined && !own.includes(query.siteId))
+    throw new ForbiddenError(`You have no access to site ${query.siteId}.`, "site_forbidden");
+  const siteIds = (query.siteId !== undefined ? [query.siteId] : own).sort((a, b) => a - b);
+  const start = `${query.from} 00:00:00`;
+  const end = `${dayAfter(query.to)} 00:00:00`;
+  if (!siteIds.length) return { siteIds, start, end, firstId: 0, lastId: 0, total: 0 };
+  const [row] = await getSequelize().query<{
+    n: number | string;
+    first: number | string | null;
+    last: number | string | null;
+  }>(
+    `SELECT COUNT(*) AS n, MIN(id) AS first, MAX(id) AS last FROM service_record
+     WHERE site_id IN (:sites) AND performed_at >= :start AND performed_at < :end`,
+    { replacements: { sites: siteIds, start, end }, type: QueryTypes.SELECT },
+  );
+  return {
+    siteIds,
+    start,
+    end,
+    firstId: Number(row?.first ?? 0),
+    lastId: Number(row?.last ?? 0),
+    total: Number(row?.n ?? 0),
+  };
+}
+
+/**
+ * Starts an export: scope and count, then the audit entry (who exported which sites and period, how many rows), so
+ * the chain head sent with the file covers the export itself.
+ */
+export async function beginServiceExport(userId: string, query: ServiceExportQuery, now: Date) {
+  const scope = await serviceExportScope(userId, query);
+  const head = await getSequelize().transaction((t) =>
+    appendAudit(
+      {
+        event: "service.exported",
+        actorId: userId,
+        subjectType: "service_history",
+        payload: {
+          format: query.format,
+          from: query.from,
+          to: query.to,
+          sites: scope.siteIds,
+          rows: scope.total,
+        },
+      },
+      t,
+      now,
+    ),
+  );
+  return { scope, total: scope.total, head };
+}
+
+/**
+ * The names a service row refers to, read once per export for the export's sites: point → [tag, point, asset, area,
+ * site], grease → [code, name], and the lot numbers, gun labels and people's names. A few thousand small rows; looking
+ * them up here instead of joining five tables per row in every page is what lets the export keep up with a plain
+ * read of the same rows (measured: joined in SQL about 0.15 of a plain streaming SELECT, looked up here about 0.4).
+ */
+interface Names {
+  points: Map<number, [string, string, string, string, string]>;
+  greases: Map<number, [string, string]>;
+  lots: Map<number, string>;
+  guns: Map<number, string>;
+  people: Map<string, string>;
+}
+
+async function bulkQuery<T>(sql: string, params: unknown[]): Promise<T[]> {
+  statementCounter.count += 1;
+  // Dates as the server sends them (DATETIME(3) is UTC here): no Date object per row.
+  return (await getBulkReadPool().query({ sql, rowsAsArray: true, dateStrings: true }, params)) as T[];
+}
+
+async function loadNames(siteIds: number[]): Promise<Names> {
+  const [points, greases, lots, guns, people] = await Promise.all([
+    bulkQuery<[number, string, string, string, string, string]>(
+      `SELECT p.id, p.tag_code, p.name, a.name, ar.name, s.name FROM lube_point p
+       JOIN asset a ON a.id = p.asset_id JOIN area ar ON ar.id = a.area_id JOIN site s ON s.id = p.site_id
+       WHERE p.site_id IN (?)`,
+      [siteIds],
+    ),
+    bulkQuery<[number, string, string]>("SELECT id, code, name FROM grease", []),
+    bulkQuery<[number, string]>("SELECT id, lot_number FROM stock_lot WHERE site_id IN (?)", [siteIds]),
+    bulkQuery<[number, string]>("SELECT id, label FROM grease_gun WHERE site_id IN (?)", [siteIds]),
+    bulkQuery<[string, string]>("SELECT id, name FROM app_user", []),
+  ]);
+  return {
+    points: new Map(points.map(([id, ...rest]) => [id, rest])),
+    greases: new Map(greases.map(([id, code, name]) => [id, [code, name]])),
+    lots: new Map(lots),
+    guns: new Map(guns),
+    people: new Map(people),
+  };
+}
+
+/**
+ * One service as the page query returns it: id, performed_at (`YYYY-MM-DD HH:MM:SS.mmm`, UTC), site_id, point_id, grease_id, grams,
+ * strokes, gun_id, planned_grams, quantity_flag, back_pressure, purge_seen, noise, housing_temperature_c, lot_id,
+ * performed_by, notes.
+ */
+type ServiceRow = [
+  id: number,
+  performedAt: string,
+  siteId: number,
+  pointId: number,
+  greaseId: number,
+  grams: string,
+  strokes: number | null,
+  gunId: number | null,
+  plannedGrams: string | null,
+  quantityFlag: string | null,
+  backPressure: number,
+  purgeSeen: number,
+  noise: number,
+  housingTemperatureC: string | null,
+  lotId: number | null,
+  performedBy: string,
+  notes: string | null,
+];
+
+/**
+ * One page of services after `afterId`, in ONE statement: the clustered primary key walked in order from the last
+ * page's id up to the export's last id (each row read once, sequentially, like a plain SELECT), filtered to the
+ * sites and the period. FORCE INDEX keeps that plan for short periods too, where the optimiser would otherwise take
+ * the (site_id, performed_at) index and sort everything after the cursor again for every page.
+ */
+const PAGE_SQL = `SELECT id, performed_at, site_id, point_id, grease_id, grams, strokes, gun_id, planned_grams, quantity_flag, back_pressure, purge_seen, noise,
+    housing_temperature_c, lot_id, performed_by, notes
+  FROM service_record FORCE INDEX (PRIMARY)
+  WHERE id > ? AND id <= ? AND site_id IN (?) AND performed_at >= ? AND performed_at < ?
+  ORDER BY id LIMIT ?`;
+
+async function readServicePage(
+  scope: ServiceExportScope,
+  afterId: number,
+  pageSize: number,
+): Promise<ServiceRow[]> {
+  return bulkQuery<ServiceRow>(PAGE_SQL, [
+    afterId,
+    scope.lastId,
+    scope.siteIds,
+    scope.start,
+    scope.end,
+    pageSize,
+  ]);
+}
+
+/** The CSV columns, in order: plain English headers for people who open the file in a spreadsheet. */
+export const SERVICE_CSV_HEADER = [
+  "Service id",
+  "Performed at (UTC)",
+  "Site",
+  "Area",
+  "Asset",
+  "Point tag",
+  "Point name",
+  "Grease code",
+  "Grease name",
+  "Grams",
+  "Strokes",
+  "Grease gun",
+  "Planned grams",
+  "Quantity flag",
+  "Back pressure",
+  "Purge seen",
+  "Noise",
+  "Housing temperature °C",
+  "Lot number",
+  "Performed by",
+  "Notes",
+] as const;
+
+const yesNo = (v: number) => (v ? "yes" : "no");
+/** Text a person typed: neutralised against formulas, then quoted where needed. */
+const t = (v: string | null | undefined) =>
+  v === null || v === undefined ? "" : csvField(neutraliseCell(v));
+
+/**
+ * A row's CSV line. Text people typed (names, codes, lot numbers, gun labels, notes) is neutralised against formulas
+ * and quoted where needed; the other cells (ids, the time, decimals, yes/no, flags, tags) never hold a comma, quote
+ * or line break, so they are written as they are.
+ */
+function csvLine(r: ServiceRow, names: Names): string {
+  const point = names.points.get(r[3]);
+  const grease = names.greases.get(r[4]);
+  // Foreign keys guarantee both; a miss means the data changed under the export, and a wrong file is worse than none.
+  if (!point || !grease)
+    throw new Error(`Service ${r[0]} refers to a point or grease the export could not read.`);
+  const [tag, pointName, asset, area, site] = point;
+  const at = `${r[1].slice(0, 10)}T${r[1].slice(11)}Z`;
+  return `${r[0]},${at},${t(site)},${t(area)},${t(asset)},${tag},${t(pointName)},${t(grease[0])},${t(grease[1])},${r[5]},${r[6] ?? ""},${r[7] === null ? "" : t(names.guns.get(r[7]))},${r[8] ?? ""},${r[9] ?? ""},${yesNo(r[10])},${yesNo(r[11])},${yesNo(r[12])},${r[13] ?? ""},${r[14] === null ? "" : t(names.lots.get(r[14]))},${t(names.people.get(r[15]))},${t(r[16])}\r\n`;
+}
+
+/**
+ * A page's CSV as UTF-8, each line written straight into one buffer: building the page as one string and encoding
+ * it afterwards costs about three times as much (the joined string is copied once more to be flattened).
+ */
+function pageBytes(rows: ServiceRow[], names: Names): Uint8Array {
+  let buffer = Buffer.allocUnsafe(rows.length * 200);
+  let length = 0;
+  for (const row of rows) {
+    const line = csvLine(row, names);
+    // A UTF-16 code unit never takes more than 3 bytes in UTF-8.
+    if (length + line.length * 3 > buffer.length) {
+      const bigger = Buffer.allocUnsafe(Math.max(buffer.length * 2, length + line.length * 3));
+      buffer.copy(bigger, 0, 0, length);
+      buffer = bigger;
+    }
+    length += buffer.write(line, length, "utf8");
+  }
+  return buffer.subarray(0, length);
+}
+
+/**
+ * The service history as CSV (RFC 4180: CRLF, quoted where needed; UTF-8 with a byte-order mark so spreadsheets
+ * read the accents), oldest first by service id (the order services were recorded), a page per `pull`.
+ * Back-pressure: the next page is asked for only when the client has taken the last one; while a page is turned
+ * into CSV the next one is already being read (the database and this process work side by side), so at most two
+ * pages are held, whatever the period.
+ */
+export function serviceCsvStream(
+  scope: ServiceExportScope,
+  pageSize = SERVICE_EXPORT_PAGE_SIZE,
+): ReadableStream<Uint8Array> {
+  const encoder = new TextEncoder();
+  let names: Promise<Names> | null = null;
+  let next: Promise<ServiceRow[]> | null = null;
+  let done = false;
+  // A promise read ahead and then dropped (the client went away) must not become an unhandled rejection.
+  const quiet = <T>(p: Promise<T>) => {
+    p.catch(() => {});
+    return p;
+  };
+  return new ReadableStream<Uint8Array>(
+    {
+      start(controller) {
+        controller.enqueue(encoder.encode(`\uFEFF${csvRecord(SERVICE_CSV_HEADER)}`));
+        if (scope.total === 0) {
+          done = true;
+          controller.close();
+          return;
+        }
+        names = quiet(loadNames(scope.siteIds));
+        next = quiet(readServicePage(scope, scope.firstId - 1, pageSize));
+      },
+      async pull(controller) {
+        if (done || !next || !names) return;
+        try {
+          const [rows, lookup] = await Promise.all([next, names]);
+          next = null;
+          const full = rows.length === pageSize;
+          if (full) next = quiet(readServicePage(scope, rows[rows.length - 1]![0], pageSize));
+          if (rows.length) controller.enqueue(pageBytes(rows, lookup));
+          if (!full) {
+            done = true;
+            controller.close();
+          }
+        } catch (error) {
+          done = true;
+          next = null;
+          log("error", "service_export_failed", {
+            message: error instanceof Error ? error.message : String(error),
+          });
+          // Erroring the stream aborts the response: the client sees a failed download, never a short file.
+          controller.error(error);
+        }
+      },
+      cancel() {
+        done = true;
+        next = null;
+      },
+    },
+    // One page waits in the queue at most.
+    { highWaterMark: 1 },
+  );
+}
