@@ -1,5 +1,6 @@
 // Measurement helpers for `npm run bench`: closed-loop load with latency percentiles, medians, process memory.
 import { execFileSync } from "node:child_process";
+import { readFileSync } from "node:fs";
 
 export const median = (xs) => {
   const s = [...xs].sort((a, b) => a - b);
@@ -98,4 +99,34 @@ export function sampleRss(pid, everyMs = 50) {
       return Math.max(peak, treeRssKb(pid));
     },
   };
+}
+
+/** CPU time (ms, user + system) used so far by a process and all its descendants (Linux /proc). */
+export function treeCpuMs(pid) {
+  const rows = execFileSync("ps", ["-e", "-o", "pid=,ppid="], { encoding: "utf8" })
+    .trim()
+    .split("\n")
+    .map((l) => l.trim().split(/\s+/).map(Number));
+  const wanted = new Set([pid]);
+  let grew = true;
+  while (grew) {
+    grew = false;
+    for (const [p, pp] of rows)
+      if (wanted.has(pp) && !wanted.has(p)) {
+        wanted.add(p);
+        grew = true;
+      }
+  }
+  const tick = 1000 / Number(execFileSync("getconf", ["CLK_TCK"], { encoding: "utf8" }).trim());
+  let ms = 0;
+  for (const p of wanted) {
+    try {
+      const stat = readFileSync(`/proc/${p}/stat`, "utf8");
+      const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+      ms += (Number(fields[11]) + Number(fields[12])) * tick; // utime, stime
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return ms;
 }
