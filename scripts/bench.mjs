@@ -533,12 +533,19 @@ async function main() {
     if (want("B6")) {
       say("B6 sign-in against raw argon2id verifications…");
       const signInStatements = await captureStatements(full.rootConn, () => tech.signIn());
-      const raw = [];
-      const signIns = [];
-      for (let r = 0; r < rounds; r++) {
-        raw.push(await load(() => verify(passwordHash, PASSWORD), { concurrency: 2, ms }));
-        signIns.push(await load(() => tech.signIn(), { concurrency: 4, ms }));
-      }
+      // Both sides at 2 and at 4 at once (the cores, and the argon2 threads of a Node process); each side's
+      // better median is its capacity.
+      const runs = { raw2: [], raw4: [], signIn2: [], signIn4: [] };
+      for (let r = 0; r < rounds; r++)
+        for (const concurrency of [2, 4]) {
+          runs[`raw${concurrency}`].push(
+            await load(() => verify(passwordHash, PASSWORD), { concurrency, ms }),
+          );
+          runs[`signIn${concurrency}`].push(await load(() => tech.signIn(), { concurrency, ms }));
+        }
+      const better = (a, b) => (m(a, "perSecond") >= m(b, "perSecond") ? a : b);
+      const raw = better(runs.raw2, runs.raw4);
+      const signIns = better(runs.signIn2, runs.signIn4);
       const b6 = m(signIns, "perSecond") / m(raw, "perSecond");
       results.push({
         id: "B6",
@@ -548,17 +555,18 @@ async function main() {
         pass: b6 >= 0.7,
         detail: {
           signInsPerSecond: m(signIns, "perSecond"),
+          byConcurrency: Object.fromEntries(Object.entries(runs).map(([k, v]) => [k, m(v, "perSecond")])),
           appCpuMsPerSignIn: m(signIns, "appCpuMsPerRequest"),
           dbCpuMsPerSignIn: m(signIns, "dbCpuMsPerRequest"),
           verifiesPerSecond: m(raw, "perSecond"),
           p50: m(signIns, "p50"),
           verifyP50: m(raw, "p50"),
-          errors: errorsOf(signIns),
+          errors: errorsOf(runs.signIn2) + errorsOf(runs.signIn4),
           statementsPerSignIn: signInStatements.length,
           statements: signInStatements,
         },
       });
-      if (errorsOf(signIns)) problems.push("B6 sign-ins failed");
+      if (errorsOf(runs.signIn2) + errorsOf(runs.signIn4)) problems.push("B6 sign-ins failed");
     }
     if (want("B7")) {
       say("B7 first-load JavaScript of the scan and catalogue pages…");

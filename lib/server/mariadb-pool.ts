@@ -6,7 +6,7 @@ type Holder = { __greaseledgerBulkPool?: mariadb.Pool };
 const holder = globalThis as Holder;
 
 /**
- * A small pool of the mariadb driver's own connections for bulk reads (the streamed exports). Sequelize runs a
+ * A small pool of the mariadb driver's own connections for bulk reads (the streamed exports, long lists). Sequelize runs a
  * JavaScript type-cast for every field and builds an object per row; for hundreds of thousands of rows read as
  * arrays of strings that costs more than the query, so exports read a page at a time through this pool instead.
  * Same account as the app; a connection is taken per page and given back, so a slow download holds none.
@@ -34,4 +34,13 @@ export function getBulkReadPool(): mariadb.Pool {
     });
   }
   return holder.__greaseledgerBulkPool;
+}
+
+/**
+ * A read-only SELECT through the same pool, for long lists: rows come back as the driver parses them, without the
+ * ORM's per-cell conversion hook (which made a 3,500-row list about three times slower than its SQL). `?`
+ * placeholders; an array value expands to a list, as in `IN (?)`.
+ */
+export async function selectRows<T>(sql: string, params: unknown[]): Promise<T[]> {
+  return (await getBulkReadPool().query(sql, params)) as T[];
 }

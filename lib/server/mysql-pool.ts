@@ -24,13 +24,3 @@ export function getMysqlPool(): mysql.Pool {
   }
   return holder.__greaseledgerMysqlPool;
 }
-
-/**
- * A read-only SELECT on the plain pool, for long lists: rows come back as the driver parses them, without the ORM's
- * per-cell conversion hook (which made a 3,500-row list about three times slower than its SQL). `?` placeholders;
- * an array value expands to a list, as in `IN (?)`.
- */
-export async function selectRows<T>(sql: string, params: unknown[]): Promise<T[]> {
-  const [rows] = await getMysqlPool().query(sql, params);
-  return rows as T[];
-}

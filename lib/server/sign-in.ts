@@ -31,17 +31,19 @@ export async function signIn(input: {
   const email = input.email.trim().toLowerCase();
   const keys = signInThrottleKeys(email, input.address);
 
-  const decision = await checkThrottle(keys, now);
+  // The throttle and the account are read side by side; nothing is checked against the account while locked.
+  const [decision, [user]] = await Promise.all([
+    checkThrottle(keys, now),
+    getSequelize().query<UserRow>(
+      "SELECT id, email, name, role, status, password_hash FROM app_user WHERE email = ? LIMIT 1",
+      { replacements: [email], type: QueryTypes.SELECT },
+    ),
+  ]);
   if (!decision.allowed) {
     await recordThrottleFailure(keys, now);
     log("warn", "sign_in_throttled", { email, address: input.address, retryAfter: decision.retryAfterSeconds });
     return { ok: false, reason: "too_many_attempts", retryAfterSeconds: decision.retryAfterSeconds };
   }
-
-  const [user] = await getSequelize().query<UserRow>(
-    "SELECT id, email, name, role, status, password_hash FROM app_user WHERE email = ? LIMIT 1",
-    { replacements: [email], type: QueryTypes.SELECT },
-  );
 
   let valid = false;
   if (user?.password_hash && user.status === "active") {
@@ -57,7 +59,7 @@ export async function signIn(input: {
     return { ok: false, reason: "invalid_credentials" };
   }
 
-  await clearThrottle(keys[0]!.key);
+  if (decision.counted.includes(keys[0]!.key)) await clearThrottle(keys[0]!.key);
   if (user.password_hash && needsRehash(user.password_hash)) {
     await getSequelize().query("UPDATE app_user SET password_hash = ?, updated_at = ? WHERE id = ?", {
       replacements: [await hashPassword(input.password), now, user.id],

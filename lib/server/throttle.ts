@@ -35,7 +35,10 @@ function toState(row: Row | undefined): ThrottleState | null {
 }
 
 /** The strictest decision over all keys. */
-export async function checkThrottle(keys: ThrottleKey[], now: Date): Promise<ThrottleDecision> {
+export async function checkThrottle(
+  keys: ThrottleKey[],
+  now: Date,
+): Promise<ThrottleDecision & { counted: string[] }> {
   const rows = await getSequelize().query<Row>(
     "SELECT throttle_key, failures, window_started_at, locked_until FROM sign_in_throttle WHERE throttle_key IN (:keys)",
     { replacements: { keys: keys.map((k) => k.key) }, type: QueryTypes.SELECT },
@@ -45,7 +48,8 @@ export async function checkThrottle(keys: ThrottleKey[], now: Date): Promise<Thr
     const decision = throttleDecision(toState(row), now);
     if (!decision.allowed && (worst.allowed || decision.retryAfterSeconds > worst.retryAfterSeconds)) worst = decision;
   }
-  return worst;
+  // Which keys have failures on record: a success need not clear a key that has none.
+  return { ...worst, counted: rows.map((r) => r.throttle_key) };
 }
 
 /** Counts one failed attempt against every key, locking the rows in a fixed order. */

@@ -5,7 +5,7 @@ import { DEFAULT_DUE_WINDOW_HOURS, dueState, nextDueAt, type DueState } from "@/
 import { quantityFlag, type QuantityFlag } from "@/lib/domain/service";
 import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
-import { selectRows } from "../mysql-pool";
+import { selectRows } from "../mariadb-pool";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { idempotent, type StoredAnswer } from "../idempotency";
 import { log } from "../log";
@@ -74,7 +74,7 @@ function dueCondition(due: DueState | undefined, now: Date): { sql: string; para
 
 /**
  * Lube points of the caller's sites (one statement), optionally one site and one due state, in route order. The due
- * time comes back as epoch milliseconds, and the rows through the plain pool (`selectRows`): long lists stay close
+ * time comes back as epoch milliseconds, and the rows through the bulk-read pool (`selectRows`): long lists stay close
  * to the time of their SQL.
  */
 export async function listPoints(userId: string, filter: { siteId?: number; due?: DueState } = {}, now = new Date()): Promise<PointListItem[]> {
