@@ -7,6 +7,7 @@
 // Only the smoke run fails, when a measured request errs or the stock invariants break, so that it cannot rot.
 import { randomUUID } from "node:crypto";
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import http from "node:http";
 import os from "node:os";
 import path from "node:path";
 import { gzipSync } from "node:zlib";
@@ -383,11 +384,25 @@ async function main() {
           const before = treeRssKb(full.pid);
           const sampler = sampleRss(full.pid);
           const t = performance.now();
-          const response = await fetch(`${full.base}${exportPath}`, { headers: { cookie: lead.cookie } });
-          if (!response.ok) throw new Error(`export answered ${response.status}`);
-          let lines = 0;
-          for await (const chunk of response.body)
-            for (let at = chunk.indexOf(10); at >= 0; at = chunk.indexOf(10, at + 1)) lines += 1;
+          // node:http rather than fetch: the download is read as fast as plain sockets allow, so the client is not
+          // what is measured.
+          const lines = await new Promise((resolve, reject) => {
+            http
+              .get(`${full.base}${exportPath}`, { headers: { cookie: lead.cookie } }, (response) => {
+                if (response.statusCode !== 200) {
+                  response.resume();
+                  reject(new Error(`export answered ${response.statusCode}`));
+                  return;
+                }
+                let count = 0;
+                response.on("data", (chunk) => {
+                  for (let at = chunk.indexOf(10); at >= 0; at = chunk.indexOf(10, at + 1)) count += 1;
+                });
+                response.on("end", () => resolve(count));
+                response.on("error", reject);
+              })
+              .on("error", reject);
+          });
           const seconds = (performance.now() - t) / 1000;
           const peak = sampler.stop();
           return { rows: lines - 1, perSecond: (lines - 1) / seconds, growthMb: (peak - before) / 1024 };

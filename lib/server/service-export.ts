@@ -9,7 +9,7 @@ import { log } from "./log";
 import { getBulkReadPool } from "./mariadb-pool";
 import { userSiteIds } from "./queries/users";
 
-/** Rows read per SQL statement: large enough that the per-statement cost disappears, small enough to stay flat. */
+/** Service ids per page (so at most this many rows per statement): the per-statement cost disappears, memory stays flat. */
 export const SERVICE_EXPORT_PAGE_SIZE = 5000;
 
 /**
@@ -170,31 +170,28 @@ type ServiceRow = [
 ];
 
 /**
- * One page of services after `afterId`, in ONE statement: the clustered primary key walked in order from the last
- * page's id up to the export's last id (each row read once, sequentially, like a plain SELECT), filtered to the
- * sites and the period. FORCE INDEX keeps that plan for short periods too, where the optimiser would otherwise take
- * the (site_id, performed_at) index and sort everything after the cursor again for every page.
+ * One page of services: the ids in [fromId, toId] (at most `SERVICE_EXPORT_PAGE_SIZE` of them), filtered to the sites
+ * and the period, in ONE statement over the clustered primary key (each row read once, sequentially, like a plain
+ * SELECT). Pages are fixed id ranges rather than "the next N after the last id", so they do not depend on each
+ * other and the stream reads several ahead at once. FORCE INDEX keeps that plan for short periods too, where the
+ * optimiser would otherwise take the (site_id, performed_at) index and sort the range.
  */
 const PAGE_SQL = `SELECT id, performed_at, site_id, point_id, grease_id, grams, strokes, gun_id, planned_grams, quantity_flag, back_pressure, purge_seen, noise,
     housing_temperature_c, lot_id, performed_by, notes
   FROM service_record FORCE INDEX (PRIMARY)
-  WHERE id > ? AND id <= ? AND site_id IN (?) AND performed_at >= ? AND performed_at < ?
-  ORDER BY id LIMIT ?`;
+  WHERE id BETWEEN ? AND ? AND site_id IN (?) AND performed_at >= ? AND performed_at < ?
+  ORDER BY id`;
 
-async function readServicePage(
+async function readServiceRange(
   scope: ServiceExportScope,
-  afterId: number,
-  pageSize: number,
+  fromId: number,
+  toId: number,
 ): Promise<ServiceRow[]> {
-  return bulkQuery<ServiceRow>(PAGE_SQL, [
-    afterId,
-    scope.lastId,
-    scope.siteIds,
-    scope.start,
-    scope.end,
-    pageSize,
-  ]);
+  return bulkQuery<ServiceRow>(PAGE_SQL, [fromId, toId, scope.siteIds, scope.start, scope.end]);
 }
+
+/** Pages read ahead of the one being sent: the database and this process work side by side. */
+const PAGES_AHEAD = 3;
 
 /** The CSV columns, in order: plain English headers for people who open the file in a spreadsheet. */
 export const SERVICE_CSV_HEADER = [
@@ -265,9 +262,9 @@ function pageBytes(rows: ServiceRow[], names: Names): Uint8Array {
 /**
  * The service history as CSV (RFC 4180: CRLF, quoted where needed; UTF-8 with a byte-order mark so spreadsheets
  * read the accents), oldest first by service id (the order services were recorded), a page per `pull`.
- * Back-pressure: the next page is asked for only when the client has taken the last one; while a page is turned
- * into CSV the next one is already being read (the database and this process work side by side), so at most two
- * pages are held, whatever the period.
+ * Back-pressure: the next page is sent only when the client has taken the last one; meanwhile up to
+ * `PAGES_AHEAD` id ranges are being read (each its own short statement, so a slow download holds no connection),
+ * so at most that many pages plus the one in the queue are held, whatever the period.
  */
 export function serviceCsvStream(
   scope: ServiceExportScope,
@@ -275,12 +272,20 @@ export function serviceCsvStream(
 ): ReadableStream<Uint8Array> {
   const encoder = new TextEncoder();
   let names: Promise<Names> | null = null;
-  let next: Promise<ServiceRow[]> | null = null;
+  const ahead: Promise<ServiceRow[]>[] = [];
+  let nextFrom = scope.firstId;
   let done = false;
   // A promise read ahead and then dropped (the client went away) must not become an unhandled rejection.
   const quiet = <T>(p: Promise<T>) => {
     p.catch(() => {});
     return p;
+  };
+  const readAhead = () => {
+    while (ahead.length < PAGES_AHEAD && nextFrom <= scope.lastId) {
+      const to = Math.min(scope.lastId, nextFrom + pageSize - 1);
+      ahead.push(quiet(readServiceRange(scope, nextFrom, to)));
+      nextFrom = to + 1;
+    }
   };
   return new ReadableStream<Uint8Array>(
     {
@@ -292,23 +297,31 @@ export function serviceCsvStream(
           return;
         }
         names = quiet(loadNames(scope.siteIds));
-        next = quiet(readServicePage(scope, scope.firstId - 1, pageSize));
+        readAhead();
       },
       async pull(controller) {
-        if (done || !next || !names) return;
+        if (done || !names) return;
         try {
-          const [rows, lookup] = await Promise.all([next, names]);
-          next = null;
-          const full = rows.length === pageSize;
-          if (full) next = quiet(readServicePage(scope, rows[rows.length - 1]![0], pageSize));
-          if (rows.length) controller.enqueue(pageBytes(rows, lookup));
-          if (!full) {
-            done = true;
-            controller.close();
+          // A range may hold no row of the sites and period: go on until a page has rows or the ranges run out
+          // (a pull that enqueues nothing would not be called again).
+          for (;;) {
+            const page = ahead.shift();
+            if (!page) {
+              done = true;
+              controller.close();
+              return;
+            }
+            const [rows, lookup] = await Promise.all([page, names]);
+            if (done) return; // cancelled meanwhile
+            readAhead();
+            if (rows.length) {
+              controller.enqueue(pageBytes(rows, lookup));
+              return;
+            }
           }
         } catch (error) {
           done = true;
-          next = null;
+          ahead.length = 0;
           log("error", "service_export_failed", {
             message: error instanceof Error ? error.message : String(error),
           });
@@ -318,7 +331,7 @@ export function serviceCsvStream(
       },
       cancel() {
         done = true;
-        next = null;
+        ahead.length = 0;
       },
     },
     // One page waits in the queue at most.
