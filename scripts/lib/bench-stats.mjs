@@ -8,7 +8,9 @@ export const median = (xs) => {
 };
 
 export const percentile = (sorted, p) =>
-  sorted.length ? sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))] : 0;
+  sorted.length
+    ? sorted[Math.min(sorted.length - 1, Math.max(0, Math.ceil((p / 100) * sorted.length) - 1))]
+    : 0;
 
 /**
  * Runs `op` from `concurrency` loops for `ms` milliseconds. `op(i, lap)` may call `lap()` after each HTTP request it
@@ -68,8 +70,8 @@ export async function serial(op, n) {
   return out;
 }
 
-/** Resident memory (kB) of a process and all its descendants (Linux `ps`). */
-export function treeRssKb(pid) {
+/** A process and all its descendants, from `ps`: [pid, rss kB] for each. */
+function processTree(pid) {
   const rows = execFileSync("ps", ["-e", "-o", "pid=,ppid=,rss="], { encoding: "utf8" })
     .trim()
     .split("\n")
@@ -84,7 +86,12 @@ export function treeRssKb(pid) {
         grew = true;
       }
   }
-  return rows.filter(([p]) => wanted.has(p)).reduce((kb, [, , rss]) => kb + rss, 0);
+  return rows.filter(([p]) => wanted.has(p)).map(([p, , rss]) => [p, rss]);
+}
+
+/** Resident memory (kB) of a process and all its descendants (Linux `ps`). */
+export function treeRssKb(pid) {
+  return processTree(pid).reduce((kb, [, rss]) => kb + rss, 0);
 }
 
 /** Samples `treeRssKb(pid)` every `everyMs` until stopped: `stop()` gives the peak in kB. */
@@ -103,23 +110,9 @@ export function sampleRss(pid, everyMs = 50) {
 
 /** CPU time (ms, user + system) used so far by a process and all its descendants (Linux /proc). */
 export function treeCpuMs(pid) {
-  const rows = execFileSync("ps", ["-e", "-o", "pid=,ppid="], { encoding: "utf8" })
-    .trim()
-    .split("\n")
-    .map((l) => l.trim().split(/\s+/).map(Number));
-  const wanted = new Set([pid]);
-  let grew = true;
-  while (grew) {
-    grew = false;
-    for (const [p, pp] of rows)
-      if (wanted.has(pp) && !wanted.has(p)) {
-        wanted.add(p);
-        grew = true;
-      }
-  }
   const tick = 1000 / Number(execFileSync("getconf", ["CLK_TCK"], { encoding: "utf8" }).trim());
   let ms = 0;
-  for (const p of wanted) {
+  for (const [p] of processTree(pid)) {
     try {
       const stat = readFileSync(`/proc/${p}/stat`, "utf8");
       const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
