@@ -18,7 +18,21 @@ export async function ensureNodeModules() {
   if (existsSync(marker) && readFileSync(marker, "utf8") === wanted) return;
   say("installing npm packages (node_modules is missing or stale)…");
   const args = existsSync(lock) ? ["ci", "--no-audit", "--no-fund"] : ["install", "--no-audit", "--no-fund"];
-  await run("npm", args, { cwd: root, env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" } });
+  // The registry sometimes drops a download (seen: EIDLETIMEOUT on one package); npm's own retries do not cover an
+  // idle body, so the whole install is tried again, up to three times.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await run("npm", args, {
+        cwd: root,
+        env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1", npm_config_fetch_retries: "5" },
+      });
+      break;
+    } catch (error) {
+      if (attempt >= 3) throw error;
+      say(`npm ${args[0]} failed (${error.message}); trying again (${attempt + 1} of 3)…`);
+      await new Promise((resolve) => setTimeout(resolve, 5000 * attempt));
+    }
+  }
   writeFileSync(marker, wanted);
 }
 
@@ -78,7 +92,11 @@ function fingerprint() {
 export async function ensureBuild(env) {
   const marker = path.join(root, ".next", "greaseledger-fingerprint");
   const wanted = fingerprint();
-  if (existsSync(marker) && readFileSync(marker, "utf8") === wanted && existsSync(path.join(root, ".next", "BUILD_ID"))) {
+  if (
+    existsSync(marker) &&
+    readFileSync(marker, "utf8") === wanted &&
+    existsSync(path.join(root, ".next", "BUILD_ID"))
+  ) {
     say("production build is up to date");
     return;
   }
@@ -95,8 +113,12 @@ export async function ensureBuild(env) {
 
 /** Runs the TypeScript database script (migrate, seed) with the given environment. */
 export function dbScript(args, env) {
-  return run(path.join(root, "node_modules", ".bin", "tsx"), ["--conditions=react-server", "scripts/db.ts", ...args], {
-    cwd: root,
-    env,
-  });
+  return run(
+    path.join(root, "node_modules", ".bin", "tsx"),
+    ["--conditions=react-server", "scripts/db.ts", ...args],
+    {
+      cwd: root,
+      env,
+    },
+  );
 }
