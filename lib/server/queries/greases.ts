@@ -61,6 +61,10 @@ const num = (v: string | number | null | undefined) =>
   v === null || v === undefined ? undefined : Number(v);
 const opt = <T>(v: T | null | undefined) => (v === null || v === undefined ? undefined : v);
 
+/** The solid additives as stored (comma-separated) to a list. */
+const additivesOf = (stored: string | null | undefined): SolidAdditive[] =>
+  stored ? (stored.split(",").filter(Boolean) as SolidAdditive[]) : [];
+
 function toDto(g: Grease, supplierName: string, packs: GreasePack[]): GreaseDto {
   return {
     id: g.id,
@@ -78,7 +82,7 @@ function toDto(g: Grease, supplierName: string, packs: GreasePack[]): GreaseDto 
     minTemperatureC: opt(g.minTemperatureC),
     maxTemperatureC: opt(g.maxTemperatureC),
     foodGrade: g.foodGrade,
-    solidAdditives: g.solidAdditives ? (g.solidAdditives.split(",").filter(Boolean) as SolidAdditive[]) : [],
+    solidAdditives: additivesOf(g.solidAdditives),
     shelfLifeMonths: opt(g.shelfLifeMonths),
     notes: opt(g.notes),
     version: g.version,
@@ -144,7 +148,7 @@ export async function greaseProfiles(ids: number[]): Promise<Map<number, GreaseP
         viscosity40: Number(g.viscosity_40),
         nlgiGrade: g.nlgi_grade,
         foodGrade: g.food_grade,
-        solidAdditives: g.solid_additives ? (g.solid_additives.split(",").filter(Boolean) as SolidAdditive[]) : [],
+        solidAdditives: additivesOf(g.solid_additives),
       },
     ]),
   );
