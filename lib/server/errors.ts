@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import "server-only";
 import { log } from "./log";
 
@@ -109,5 +110,5 @@ export function errorBody(error: AppError): ErrorBody {
 /** The JSON error response for anything thrown in a route handler. */
 export function errorResponse(error: unknown): Response {
   const appError = toAppError(error);
-  return Response.json(errorBody(appError), { status: appError.status, headers: appError.headers });
+  return jsonResponse(errorBody(appError), { status: appError.status, headers: appError.headers });
 }

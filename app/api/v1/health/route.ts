@@ -1,6 +1,8 @@
+import { jsonResponse } from "@/lib/server/json-response";
+
 export const dynamic = "force-dynamic";
 
 /** Liveness only: answers without touching the database (also the framework floor in benchmarks). */
 export function GET() {
-  return Response.json({ ok: true });
+  return jsonResponse({ ok: true });
 }

@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { ValidationError } from "@/lib/server/errors";
 import { listPoints } from "@/lib/server/queries/points";
@@ -11,5 +12,5 @@ export const GET = apiRoute({ action: "points.read" }, async ({ request, user })
   const parsed = pointsQuerySchema.safeParse(Object.fromEntries(request.nextUrl.searchParams));
   if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
   const items = await listPoints(user.id, { siteId: parsed.data.site, due: parsed.data.due });
-  return Response.json({ items: items.map(({ tag, name, asset, site, due, nextDueAt }) => ({ tag, name, asset, site, due, nextDueAt })) });
+  return jsonResponse({ items: items.map(({ tag, name, asset, site, due, nextDueAt }) => ({ tag, name, asset, site, due, nextDueAt })) });
 });

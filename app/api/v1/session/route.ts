@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { NextResponse } from "next/server";
 import { apiRoute } from "@/lib/server/api";
 import { TooManyRequestsError, UnauthorizedError } from "@/lib/server/errors";
@@ -20,7 +21,7 @@ export const POST = apiRoute({ public: true, body: signInSchema }, async ({ requ
     if (result.reason === "too_many_attempts") throw new TooManyRequestsError(result.retryAfterSeconds);
     throw new UnauthorizedError("The e-mail address or the password is not right.", "invalid_credentials");
   }
-  const response = NextResponse.json({ user: result.user });
+  const response = jsonResponse({ user: result.user });
   const cookie = sessionCookie();
   response.cookies.set(cookie.name, result.token, cookie.attributes);
   return response;

@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { listStock } from "@/lib/server/queries/stock";
 
@@ -5,5 +6,5 @@ export const dynamic = "force-dynamic";
 
 /** Containers on hand per grease, pack and location, with the reorder point (containers of that pack) and low flag. */
 export const GET = apiRoute({ action: "stock.read" }, async ({ user }) =>
-  Response.json({ items: await listStock(user.id) }),
+  jsonResponse({ items: await listStock(user.id) }),
 );

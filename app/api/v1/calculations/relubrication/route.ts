@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { gunStrokes, relubricationInterval, replenishmentQuantity } from "@/lib/domain/relubrication";
 import { apiRoute } from "@/lib/server/api";
 import { relubricationSchema } from "@/lib/validation/calculations";
@@ -9,7 +10,7 @@ export const POST = apiRoute({ action: "calculations.use", body: relubricationSc
   const interval = relubricationInterval(body);
   const quantity = replenishmentQuantity({ outsideDiameterMm: body.outsideDiameterMm, widthMm: body.widthMm, replenishment: body.replenishment });
   const strokes = body.gunGramsPerStroke && quantity.quantityGrams !== null ? gunStrokes(quantity.quantityGrams, body.gunGramsPerStroke) : null;
-  return Response.json({
+  return jsonResponse({
     intervalHours: interval.intervalHours === null ? null : Math.round(interval.intervalHours),
     quantityGrams: quantity.quantityGrams === null ? null : Math.round(quantity.quantityGrams * 100) / 100,
     ...(strokes ? { strokes: strokes.strokes } : {}),

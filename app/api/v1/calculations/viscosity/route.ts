@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { isoViscosityGrade, ratedViscosity, viscosityAtTemperature, viscosityIndex, viscosityRatio } from "@/lib/domain/viscosity";
 import { apiRoute } from "@/lib/server/api";
 import { viscosityCalcSchema } from "@/lib/validation/calculations";
@@ -24,5 +25,5 @@ export const POST = apiRoute({ action: "calculations.use", body: viscosityCalcSc
       }
     }
   }
-  return Response.json(out);
+  return jsonResponse(out);
 });

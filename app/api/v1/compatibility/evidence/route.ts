@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { PayloadTooLargeError, UnsupportedMediaTypeError, ValidationError } from "@/lib/server/errors";
 import { createEvidence, listEvidence } from "@/lib/server/queries/compatibility";
@@ -7,7 +8,7 @@ import { zodFieldErrors } from "@/lib/validation/field-errors";
 
 export const dynamic = "force-dynamic";
 
-export const GET = apiRoute({ action: "catalogue.read" }, async () => Response.json({ items: await listEvidence() }));
+export const GET = apiRoute({ action: "catalogue.read" }, async () => jsonResponse({ items: await listEvidence() }));
 
 /**
  * Records evidence about a pair: multipart form with `payload` (JSON, see evidenceSchema) and an optional
@@ -32,7 +33,7 @@ export const POST = apiRoute({ action: "compatibility.rules.manage" }, async ({ 
   const file = form.get("file");
   const documentId = file instanceof File && file.size > 0 ? await storePdf(file, "file", user.id) : null;
   try {
-    return Response.json(await createEvidence(parsed.data, user.id, documentId), { status: 201 });
+    return jsonResponse(await createEvidence(parsed.data, user.id, documentId), { status: 201 });
   } catch (error) {
     if (documentId) await discardStoredFile(documentId);
     throw error;

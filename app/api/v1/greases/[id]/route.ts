@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { parseId } from "@/lib/server/params";
 import { requireGrease, updateGrease } from "@/lib/server/queries/greases";
@@ -7,9 +8,9 @@ export const dynamic = "force-dynamic";
 
 type Params = { id: string };
 
-export const GET = apiRoute<Params>({ action: "catalogue.read" }, async ({ params }) => Response.json(await requireGrease(parseId(params.id))));
+export const GET = apiRoute<Params>({ action: "catalogue.read" }, async ({ params }) => jsonResponse(await requireGrease(parseId(params.id))));
 
 export const PATCH = apiRoute<Params, typeof greasePatchSchema>(
   { action: "catalogue.write", body: greasePatchSchema },
-  async ({ params, body, user }) => Response.json(await updateGrease(parseId(params.id), body, user.id)),
+  async ({ params, body, user }) => jsonResponse(await updateGrease(parseId(params.id), body, user.id)),
 );

@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { getPointByTag, pointApiDto } from "@/lib/server/queries/points";
 import { parseTagParam } from "@/lib/server/tags";
@@ -5,5 +6,5 @@ import { parseTagParam } from "@/lib/server/tags";
 export const dynamic = "force-dynamic";
 
 export const GET = apiRoute<{ tag: string }>({ action: "points.read" }, async ({ params, user }) =>
-  Response.json(pointApiDto(await getPointByTag(parseTagParam(params.tag), user.id))),
+  jsonResponse(pointApiDto(await getPointByTag(parseTagParam(params.tag), user.id))),
 );

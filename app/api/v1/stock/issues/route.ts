@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { parseIdempotencyKey } from "@/lib/server/idempotency";
 import { issueStock } from "@/lib/server/queries/stock";
@@ -14,6 +15,6 @@ export const POST = apiRoute(
       user.id,
       parseIdempotencyKey(request.headers.get("idempotency-key")),
     );
-    return Response.json(answer.body, { status: answer.status });
+    return jsonResponse(answer.body, { status: answer.status });
   },
 );

@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { ValidationError } from "@/lib/server/errors";
 import { listIssueLots } from "@/lib/server/queries/stock-lots";
@@ -10,5 +11,5 @@ export const dynamic = "force-dynamic";
 export const GET = apiRoute({ action: "stock.read" }, async ({ request, user }) => {
   const parsed = lotsQuerySchema.safeParse(Object.fromEntries(request.nextUrl.searchParams));
   if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
-  return Response.json({ items: await listIssueLots(user.id, parsed.data) });
+  return jsonResponse({ items: await listIssueLots(user.id, parsed.data) });
 });

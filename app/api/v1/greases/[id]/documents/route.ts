@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { z } from "zod";
 import { apiRoute } from "@/lib/server/api";
 import { PayloadTooLargeError, UnsupportedMediaTypeError, ValidationError } from "@/lib/server/errors";
@@ -31,5 +32,5 @@ export const POST = apiRoute<{ id: string }>({ action: "catalogue.write" }, asyn
     await discardStoredFile(documentId);
     throw error;
   }
-  return Response.json({ documentId, kind: kind.data }, { status: 201 });
+  return jsonResponse({ documentId, kind: kind.data }, { status: 201 });
 });

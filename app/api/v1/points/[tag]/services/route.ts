@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { parseIdempotencyKey } from "@/lib/server/idempotency";
 import { recordService } from "@/lib/server/queries/points";
@@ -10,5 +11,5 @@ export const dynamic = "force-dynamic";
 export const POST = apiRoute<{ tag: string }, typeof serviceSchema>({ action: "service.record", body: serviceSchema }, async ({ request, params, body, user }) => {
   const key = parseIdempotencyKey(request.headers.get("idempotency-key"));
   const answer = await recordService(parseTagParam(params.tag), user.id, body, key);
-  return Response.json(answer.body, { status: answer.status });
+  return jsonResponse(answer.body, { status: answer.status });
 });

@@ -1,3 +1,4 @@
+import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { getLotLabel } from "@/lib/server/queries/stock-lots";
 import { parseLabelParam } from "@/lib/server/tags";
@@ -6,5 +7,5 @@ export const dynamic = "force-dynamic";
 
 /** What a container label stands for: grease, pack, lot, dates, where its containers are, a lot to take first. */
 export const GET = apiRoute<{ code: string }>({ action: "stock.read" }, async ({ params, user }) => {
-  return Response.json(await getLotLabel(parseLabelParam(params.code), user.id));
+  return jsonResponse(await getLotLabel(parseLabelParam(params.code), user.id));
 });
