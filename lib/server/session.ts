@@ -3,9 +3,11 @@ import { createHash, randomBytes } from "node:crypto";
 import { Mysql2Adapter } from "@lucia-auth/adapter-mysql";
 import { Lucia, TimeSpan } from "lucia";
 import type { RowDataPacket } from "mysql2";
+import type { Transaction } from "sequelize";
 import { cookiesAreSecure, getEnv } from "@/lib/env";
 import { SESSION_TIMEOUTS, evaluateSession, sessionNeedsTouch } from "@/lib/domain/auth";
 import { isRole, type Role } from "@/lib/domain/permissions";
+import { getSequelize } from "./db";
 import { getMysqlPool } from "./mysql-pool";
 import { log } from "./log";
 
@@ -34,11 +36,14 @@ export interface ValidSession {
 type DbUser = { email: string; name: string; role: string; status: string; unit_system: string };
 type DbSession = { created_at: Date; last_seen_at: Date; user_agent: string | null };
 
+/** The longest absolute lifetime of any role; the per-role idle and absolute limits are checked on every request. */
+const SESSION_LIFETIME_MS = Math.max(...Object.values(SESSION_TIMEOUTS).map((t) => t.absoluteHours)) * 3_600_000;
+
 function createLucia() {
   const adapter = new Mysql2Adapter(getMysqlPool(), { user: "app_user", session: "user_session" });
   return new Lucia(adapter, {
     // The longest absolute lifetime of any role; the per-role idle and absolute limits are checked below.
-    sessionExpiresIn: new TimeSpan(Math.max(...Object.values(SESSION_TIMEOUTS).map((t) => t.absoluteHours)), "h"),
+    sessionExpiresIn: new TimeSpan(SESSION_LIFETIME_MS / 3_600_000, "h"),
     sessionCookie: { expires: false },
     getSessionAttributes: (attributes: DbSession) => attributes,
     getUserAttributes: (attributes: DbUser) => attributes,
@@ -73,14 +78,23 @@ export function sessionCookie() {
   };
 }
 
-/** Starts a new session for a user and returns the cookie token. */
-export async function createSession(userId: string, meta: { userAgent?: string | null; now?: Date } = {}) {
+/**
+ * Starts a new session for a user inside the caller's transaction, so that a sign-in and its audit entry commit
+ * together (one commit instead of two), and returns the cookie token. Only the token's hash is stored.
+ */
+export async function createSession(
+  userId: string,
+  transaction: Transaction,
+  meta: { userAgent?: string | null; now?: Date } = {},
+): Promise<string> {
   const token = randomBytes(20).toString("base64url");
   const now = meta.now ?? new Date();
-  await lucia().createSession(
-    userId,
-    { created_at: now, last_seen_at: now, user_agent: meta.userAgent?.slice(0, 255) ?? null },
-    { sessionId: hashToken(token) },
+  await getSequelize().query(
+    "INSERT INTO user_session (id, user_id, expires_at, created_at, last_seen_at, user_agent) VALUES (?, ?, ?, ?, ?, ?)",
+    {
+      replacements: [hashToken(token), userId, new Date(now.getTime() + SESSION_LIFETIME_MS), now, now, meta.userAgent?.slice(0, 255) ?? null],
+      transaction,
+    },
   );
   return token;
 }

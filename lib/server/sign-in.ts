@@ -1,6 +1,6 @@
 import "server-only";
 import { QueryTypes } from "sequelize";
-import { recordAudit } from "./audit";
+import { appendAudit, recordAudit } from "./audit";
 import { getSequelize } from "./db";
 import { log } from "./log";
 import { hashPassword, needsRehash, verifyDummy, verifyPassword } from "./passwords";
@@ -65,8 +65,11 @@ export async function signIn(input: {
       replacements: [await hashPassword(input.password), now, user.id],
     });
   }
-  const token = await createSession(user.id, { userAgent: input.userAgent, now });
+  const token = await getSequelize().transaction(async (transaction) => {
+    const made = await createSession(user.id, transaction, { userAgent: input.userAgent, now });
+    await appendAudit({ event: "session.signed_in", actorId: user.id, subjectType: "user", subjectId: user.id, payload: { address: input.address } }, transaction, now);
+    return made;
+  });
   log("info", "sign_in_ok", { userId: user.id, address: input.address });
-  await recordAudit({ event: "session.signed_in", actorId: user.id, subjectType: "user", subjectId: user.id, payload: { address: input.address } }, now);
   return { ok: true, token, user: { id: user.id, email: user.email, name: user.name, role: user.role } };
 }
