@@ -1,7 +1,7 @@
 import "server-only";
 import { QueryTypes, type Transaction } from "sequelize";
-import { canonicalJson, chainVerifier, type AuditEntry, type ChainCheck } from "@/lib/domain/audit";
-import { auditHash, sha256Hex } from "./audit-hash";
+import { auditHashTemplate, canonicalJson, chainVerifier, type AuditEntry, type ChainCheck } from "@/lib/domain/audit";
+import { sha256Hex } from "./audit-hash";
 import { getSequelize } from "./db";
 
 export interface AuditEvent {
@@ -17,25 +17,16 @@ export interface AuditEvent {
 
 /**
  * Appends one entry to the audit trail inside the caller's transaction, so the entry exists exactly when the change
- * does. The chain head is locked for the rest of the transaction: appends are strictly ordered, so call this as the
- * last statement of the transaction to keep the lock short and the lock order the same everywhere.
+ * does. One call: the database locks the chain head, finishes the entry's hash from the template sent here and
+ * inserts it (procedure `audit_append`, migration 0009). The head stays locked for the rest of the transaction:
+ * appends are strictly ordered, so call this as the last statement of the transaction to keep the lock short.
  */
 export async function appendAudit(
   event: AuditEvent,
   transaction: Transaction,
   now = new Date(),
 ): Promise<{ seq: number; hash: string }> {
-  const sequelize = getSequelize();
-  const [head] = await sequelize.query<{ seq: string | number; hash: string }>(
-    "SELECT seq, hash FROM audit_head WHERE id = 1 FOR UPDATE",
-    {
-      type: QueryTypes.SELECT,
-      transaction,
-    },
-  );
-  if (!head) throw new Error("The audit chain head is missing: run the migrations.");
-  const entry: AuditEntry = {
-    seq: Number(head.seq) + 1,
+  const entry = {
     at: now.toISOString(),
     actorId: event.actorId,
     siteId: event.siteId ?? null,
@@ -43,29 +34,33 @@ export async function appendAudit(
     subjectType: event.subjectType ?? null,
     subjectId: event.subjectId === undefined || event.subjectId === null ? null : String(event.subjectId),
     payload: event.payload ?? {},
-    prevHash: head.hash,
   };
-  const hash = auditHash(entry);
-  await sequelize.query(
-    `INSERT INTO audit_log (seq, at, actor_id, site_id, event, subject_type, subject_id, payload_json, prev_hash, hash) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
-    {
-      replacements: [
-        entry.seq,
-        now,
-        entry.actorId,
-        entry.siteId,
-        entry.event,
-        entry.subjectType,
-        entry.subjectId,
-        canonicalJson(entry.payload),
-        entry.prevHash,
-        hash,
-      ],
-      transaction,
-    },
-  );
-  // The insert moves the chain head (trigger audit_log_follows_head, which also refuses an entry that does not follow it).
-  return { seq: entry.seq, hash };
+  const template = auditHashTemplate(entry);
+  const result = await getSequelize().query("CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?)", {
+    replacements: [
+      now,
+      entry.actorId,
+      entry.siteId,
+      entry.event,
+      entry.subjectType,
+      entry.subjectId,
+      canonicalJson(entry.payload),
+      template.before,
+      template.after,
+    ],
+    type: QueryTypes.RAW,
+    transaction,
+  });
+  const appended = firstRow(result);
+  if (!appended) throw new Error("The audit append answered nothing: run the migrations.");
+  return { seq: Number(appended.seq), hash: String(appended.hash) };
+}
+
+/** The first row of a procedure's first result set, whatever shape the driver hands it back in. */
+function firstRow(result: unknown): { seq: unknown; hash: unknown } | undefined {
+  let value: unknown = result;
+  while (Array.isArray(value)) value = value[0];
+  return value && typeof value === "object" && "seq" in value ? (value as { seq: unknown; hash: unknown }) : undefined;
 }
 
 /** Appends an entry in a transaction of its own (for events that change nothing else, such as a sign-in). */

@@ -6,6 +6,7 @@ import * as m0005 from "./0005-stock-work";
 import * as m0006 from "./0006-audit";
 import * as m0007 from "./0007-incident-work";
 import * as m0008 from "./0008-audit-head-trigger";
+import * as m0009 from "./0009-audit-append-procedure";
 
 /**
  * Every schema migration, in the order it is applied. To add one: create `NNNN-what.ts` exporting
@@ -21,4 +22,5 @@ export const MIGRATIONS = [
   { name: "0006-audit.ts", ...m0006 },
   { name: "0007-incident-work.ts", ...m0007 },
   { name: "0008-audit-head-trigger.ts", ...m0008 },
+  { name: "0009-audit-append-procedure.ts", ...m0009 },
 ];

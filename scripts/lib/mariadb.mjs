@@ -187,5 +187,7 @@ export async function grantAppPrivileges({ socket, database, user }) {
         : "SELECT, INSERT, UPDATE, DELETE";
     return `GRANT ${rights} ON ${ident(database)}.${ident(table)} TO ${account};`;
   });
+  // Stored procedures (the audit append) run with their definer's rights: the app may call them, nothing more.
+  grants.push(`GRANT EXECUTE ON ${ident(database)}.* TO ${account};`);
   await sql(`REVOKE ALL PRIVILEGES, GRANT OPTION FROM ${account};\n${grants.join("\n")}\nFLUSH PRIVILEGES;`);
 }

@@ -1,4 +1,5 @@
 export type { AuditEntry, ChainCheck } from "./types";
 export { canonicalJson } from "./canonical-json";
-export { GENESIS_HASH, auditHashInput } from "./audit-hash";
+export { GENESIS_HASH, auditHashInput, auditHashTemplate, fillAuditHashTemplate } from "./audit-hash";
+export type { AuditHashTemplate } from "./audit-hash";
 export { chainVerifier } from "./verify-chain";
