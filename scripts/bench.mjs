@@ -14,8 +14,8 @@ import { gzipSync } from "node:zlib";
 import { hash, verify } from "@node-rs/argon2";
 import mariadb from "mariadb";
 import { load as loadOnly, median, sampleRss, serial, treeCpuMs, treeRssKb } from "./lib/bench-stats.mjs";
-import { dbScript, ensureDebianPackage, ensureNodeModules, root } from "./lib/setup.mjs";
-import { newSecret, startApp, startDatabase } from "./lib/stack.mjs";
+import { ensureDebianPackage, ensureNodeModules, root } from "./lib/setup.mjs";
+import { client, plant } from "./lib/plant.mjs";
 import { freePort, say, startChild, stopChild, waitForHttp } from "./lib/util.mjs";
 
 const args = process.argv.slice(2);
@@ -34,89 +34,6 @@ const CONCURRENCY = 16;
 const PASSWORD = "bench-password-2026";
 const ARGON = { algorithm: 2, memoryCost: 19456, timeCost: 2, parallelism: 1 };
 const ms = seconds * 1000;
-
-/** One database with the scale data at `fraction`, and an app process serving it. */
-async function plant(tmp, name, fraction, stoppers, passwordHash) {
-  const [dbPort, appPort] = [await freePort(), await freePort()];
-  const ownerPassword = newSecret();
-  const database = `greaseledger_bench`;
-  const { db, env } = await startDatabase({
-    baseDir: path.join(tmp, `db-${name}`),
-    port: dbPort,
-    database,
-    password: newSecret(),
-    ownerPassword,
-    reuse: false,
-    seed: false,
-  });
-  stoppers.push(db.stop);
-  say(`loading the scale data for the ${name} plant (size ${fraction})…`);
-  await dbScript(["scale", "--size", String(fraction)], {
-    ...process.env,
-    ...env,
-    DATABASE_USER: "app_owner",
-    DATABASE_PASSWORD: ownerPassword,
-  });
-  const rootConn = await mariadb.createConnection({
-    socketPath: db.socket,
-    user: "root",
-    database,
-    bigIntAsNumber: true,
-    decimalAsNumber: true,
-  });
-  stoppers.push(() => rootConn.end());
-  await rootConn.query("UPDATE app_user SET password_hash = ? WHERE email LIKE 'scale-%@example.test'", [
-    passwordHash,
-  ]);
-  await rootConn.query("ANALYZE TABLE lube_point, service_record, stock_lot, stock_movement, grease");
-  const app = await startApp({
-    port: appPort,
-    env: {
-      ...env,
-      APP_URL: `http://127.0.0.1:${appPort}`,
-      OUTBOX_RELAY: "false",
-      UPLOAD_DIR: path.join(tmp, `uploads-${name}`),
-    },
-    silent: true,
-  });
-  stoppers.push(app.stop);
-  return { base: `http://127.0.0.1:${appPort}`, env, rootConn, pid: app.child.pid, dbPid: db.child?.pid };
-}
-
-/** An HTTP client signed in as one of the scale users. */
-async function client(base, who) {
-  const origin = base;
-  const signIn = async (email = `scale-${who}@example.test`) => {
-    const r = await fetch(`${base}/api/v1/session`, {
-      method: "POST",
-      headers: { origin, "content-type": "application/json" },
-      body: JSON.stringify({ email, password: PASSWORD }),
-    });
-    if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`);
-    await r.arrayBuffer();
-    return r.headers
-      .getSetCookie()
-      .map((c) => c.split(";")[0])
-      .join("; ");
-  };
-  const cookie = await signIn();
-  const request = async (p, { method = "GET", body, headers = {}, expect = [200] } = {}) => {
-    const r = await fetch(`${base}${p}`, {
-      method,
-      headers: {
-        cookie,
-        ...(body ? { origin, "content-type": "application/json" } : {}),
-        ...headers,
-      },
-      body: body ? JSON.stringify(body) : undefined,
-    });
-    const text = await r.text();
-    if (!expect.includes(r.status))
-      throw new Error(`${method} ${p} answered ${r.status}: ${text.slice(0, 200)}`);
-    return text ? JSON.parse(text) : null;
-  };
-  return { signIn, request, cookie };
-}
 
 /**
  * The SQL statements the app's account sent while `fn` ran, read from MariaDB's general log (so they are exactly
@@ -165,12 +82,12 @@ async function main() {
   const errorsOf = (runs) => runs.reduce((n, x) => n + x.errors, 0);
   try {
     const passwordHash = await hash(PASSWORD, ARGON);
-    const full = await plant(tmp, "full", size, stoppers, passwordHash);
-    const small = await plant(tmp, "small", size / 100, stoppers, passwordHash);
+    const full = await plant({ tmp, name: "full", fraction: size, stoppers, passwordHash });
+    const small = await plant({ tmp, name: "small", fraction: size / 100, stoppers, passwordHash });
     charged = full;
 
-    const tech = await client(full.base, "technician");
-    const techSmall = await client(small.base, "technician");
+    const tech = await client(full.base, "technician", PASSWORD);
+    const techSmall = await client(small.base, "technician", PASSWORD);
     const scanFor = (c, points, greases) => async (i, lap) => {
       const point = points[i % points.length];
       await c.request(`/api/v1/points/${point.tag}`);
@@ -364,7 +281,7 @@ async function main() {
     }
     if (want("B4")) {
       say("B4 one year of service history as CSV against a plain streaming SELECT…");
-      const lead = await client(full.base, "lead");
+      const lead = await client(full.base, "lead", PASSWORD);
       const [{ last }] = await full.rootConn.query("SELECT MAX(performed_at) AS last FROM service_record");
       const to = new Date(last);
       const from = new Date(to.getTime() - 364 * 86_400_000);
@@ -458,7 +375,7 @@ async function main() {
     }
     if (want("B5")) {
       say(`B5 stock issue at concurrency ${CONCURRENCY} against the framework floor…`);
-      const clerk = await client(full.base, "clerk");
+      const clerk = await client(full.base, "clerk", PASSWORD);
       // A storeroom issues many greases: the 16 clients issue one container at a time from 8 greases in turn, each
       // with a fresh lot of 100,000. The one-lot case (every client on the same grease, so every issue waits for the
       // one before it) is measured too, for information.
