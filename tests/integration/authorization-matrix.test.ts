@@ -237,6 +237,17 @@ describe("server actions: every action × every role and signed out, over HTTP",
     checkActions(await pool(jobs));
   });
 
+  it("sign-out without an Origin header is refused and the session lives on", async () => {
+    const client = await signedIn("clerk");
+    const signOut = actions.find((a) => a.key === "app/(app)/actions.ts#signOutAction")!;
+    const refused = await callAction(client, signOut, [], { origin: null });
+    expect(refused.redirect).toBeNull();
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(200);
+    const done = await callAction(client, signOut, []);
+    expect(done.redirect).toMatch(/\/sign-in/);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+  });
+
   it("the sessions the matrix used are still alive (no cell signed them out)", async () => {
     for (const role of ROLES) expect((await clients.get(role)!.request("GET", "/api/v1/me")).status, role).toBe(200);
   });

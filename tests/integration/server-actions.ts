@@ -53,20 +53,19 @@ export interface ActionAnswer {
   text: string;
 }
 
-/** Posts one server action call with the client's cookies; `headers` are added to the browser's own. */
+/** Posts one server action call with the client's cookies; `headers` are added to the browser's own (null drops one). */
 export async function callAction(
   client: Client | null,
   action: ManifestAction,
   args: unknown[],
-  headers: Record<string, string> = {},
+  headers: Record<string, string | null> = {},
 ): Promise<ActionAnswer> {
   const body = await encodeReply(args);
-  const sent: Record<string, string> = {
-    accept: "text/x-component",
-    "next-action": action.id,
-    origin: new URL(APP_URL).origin,
-    ...headers,
-  };
+  const sent: Record<string, string> = { accept: "text/x-component", "next-action": action.id, origin: new URL(APP_URL).origin };
+  for (const [name, value] of Object.entries(headers)) {
+    if (value === null) delete sent[name];
+    else sent[name] = value;
+  }
   if (typeof body === "string") sent["content-type"] = "text/plain;charset=UTF-8";
   if (client?.cookies.size) sent.cookie = [...client.cookies].map(([k, v]) => `${k}=${v}`).join("; ");
   const response = await fetch(new URL(action.page, APP_URL), { method: "POST", headers: sent, body, redirect: "manual" });
