@@ -759,7 +759,10 @@ export async function issueStock(
         "SELECT id FROM lube_point WHERE tag_code = ? AND site_id = ?",
         { replacements: [input.pointTag, siteId], type: QueryTypes.SELECT, transaction },
       );
-      pointId = point ? Number(point.id) : null;
+      // A tag of another site (or none at all) is refused rather than dropped: the issue would lose its point.
+      if (!point)
+        throw new ValidationError({ pointTag: [`No lube point with tag ${input.pointTag} at the site these containers are at.`] });
+      pointId = Number(point.id);
     }
     for (const pick of picks) {
       await takeFromRow(
