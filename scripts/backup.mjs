@@ -95,7 +95,8 @@ try {
     const rows = tables.reduce((n, t) => n + t.rows, 0);
     say(
       `backup written: ${shown(file)} (${size(manifest.bytes)}; ${tables.length} tables, ` +
-        `${rows} rows; snapshot at ${manifest.snapshotAt}${manifest.auditHead ? `; audit head ${manifest.auditHead.seq}` : ""})`,
+        `${rows} rows; snapshot at ${manifest.snapshotAt}${manifest.auditHead ? `; audit head ${manifest.auditHead.seq}` : ""}` +
+        `${manifest.binlog ? `; binary log ${manifest.binlog.file} at ${manifest.binlog.position}` : ""})`,
     );
     if (removed.length) say(`removed older backups (--keep ${options.keep}): ${removed.join(", ")}`);
   } else {

@@ -230,6 +230,11 @@ export async function backupDatabase({ socket, database, dir, keep, log = () => 
 
   log(`dumping ${database} (one consistent snapshot; the app keeps running)…`);
   const dump = tool("mariadb-dump", "mysqldump");
+  // With a binary log, the dump also notes the log position of its snapshot (MariaDB takes it from the snapshot
+  // itself, without a global lock): the point from which a replay of the log continues after a restore.
+  const [[logBin]] = await sql("SELECT @@log_bin");
+  const binlog = logBin === "1";
+  let head = "";
   let tail = "";
   try {
     await exec(
@@ -244,12 +249,17 @@ export async function backupDatabase({ socket, database, dir, keep, log = () => 
         "--events",
         "--hex-blob",
         "--default-character-set=utf8mb4",
+        ...(binlog ? ["--master-data=2"] : []),
         database,
       ],
       {
         stdout: (out) => {
           const watch = new PassThrough();
-          watch.on("data", (chunk) => (tail = (tail + chunk.toString("latin1")).slice(-200)));
+          watch.on("data", (chunk) => {
+            const text = chunk.toString("latin1");
+            if (head.length < 4096) head += text.slice(0, 4096 - head.length);
+            tail = (tail + text).slice(-200);
+          });
           return pipeline(out, watch, createGzip({ level: 6 }), createWriteStream(partial));
         },
       },
@@ -261,6 +271,7 @@ export async function backupDatabase({ socket, database, dir, keep, log = () => 
     throw new BackupError(`The dump of ${database} failed: ${error.message}. No backup was written.`);
   }
   const digest = await sha256(partial);
+  const position = /CHANGE MASTER TO MASTER_LOG_FILE='([^']+)', MASTER_LOG_POS=(\d+)/.exec(head);
 
   // Prove the file loads, and measure what it holds (the live tables have moved on since the snapshot).
   const check = database + SUFFIX.check;
@@ -294,6 +305,7 @@ export async function backupDatabase({ socket, database, dir, keep, log = () => 
     snapshotAt: snapshotAt.toISOString(),
     finishedAt: new Date().toISOString(),
     ...about,
+    binlog: position ? { file: position[1], position: Number(position[2]) } : null,
     tables,
   };
   const manifestFile = manifestPathOf(file);
