@@ -91,37 +91,6 @@ async function released(database: string) {
   throw new Error(`connections to ${database} stayed open`);
 }
 
-/**
- * A migrated, empty database set up as `npm start` sets up its own: the owner account migrates it (so its triggers
- * run as the owner), and the app's account may read and write (the restore narrows that to its usual table rights).
- */
-async function createOwnedDatabase(name: string) {
-  const owner = process.env.DATABASE_OWNER_USER!;
-  await root(`DROP DATABASE IF EXISTS \`${name}\``);
-  await root(`CREATE DATABASE \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
-  await root(`GRANT ALL PRIVILEGES ON \`${name}\`.* TO ?@'127.0.0.1'`, [owner]);
-  await root(`GRANT SELECT, INSERT, UPDATE, DELETE ON \`${name}\`.* TO ?@'127.0.0.1'`, [
-    process.env.DATABASE_USER,
-  ]);
-  const { parseEnv } = await import("@/lib/env");
-  const { createSequelize } = await import("@/lib/server/db");
-  const { createMigrator } = await import("@/models/migrator");
-  const sequelize = createSequelize(
-    parseEnv({
-      ...process.env,
-      DATABASE_NAME: name,
-      DATABASE_USER: owner,
-      DATABASE_PASSWORD: process.env.DATABASE_OWNER_PASSWORD,
-    }),
-    { poolMax: 2 },
-  );
-  try {
-    await createMigrator(sequelize, { info: () => {}, warn: () => {}, error: console.error }).up();
-  } finally {
-    await sequelize.close();
-  }
-}
-
 type Holder = { __greaseledgerSequelize?: Sequelize };
 
 /** Runs `fn` with the app's own code (as the app's account) pointed at `database`. */
@@ -244,21 +213,29 @@ describe("backup and restore", () => {
     expect(await databases()).not.toContain(`${COPY}_restoring`);
   });
 
-  it("a dump taken during appends holds one moment; a restore in place keeps the old tables aside", async () => {
-    await createOwnedDatabase(LOAD);
-    const { recordAudit, verifyAuditChain } = await import("@/lib/server/audit");
+  it("a dump taken during writes holds one moment; a restore in place keeps the old tables aside", async () => {
+    // A database of this file's own with the seeded content: the copy restored above, under another name.
+    await ok(["restore", backupFile], LOAD);
+    const { appendAudit, recordAudit, verifyAuditChain } = await import("@/lib/server/audit");
+    const { getSequelize } = await import("@/lib/server/db");
     let seqBefore = 0;
     let seqAfter = 0;
     let out = "";
     await onDatabase(LOAD, async () => {
-      for (let i = 0; i < 20; i++)
-        await recordAudit({ event: "test.before_backup", actorId: null, payload: { i } });
       seqBefore = (await verifyAuditChain()).headSeq;
-      // Three writers append to the chain for as long as the backup runs.
+      // Three writers run for as long as the backup does. Each transaction writes a row to a table the dump reads
+      // late (sign_in_throttle) and an audit entry (audit_head and audit_log are read early): a dump that read the
+      // tables at different moments would hold more rows of one than of the other.
       let running = true;
       const writers = Array.from({ length: 3 }, async (_, w) => {
         for (let i = 0; running; i++)
-          await recordAudit({ event: "test.during_backup", actorId: null, payload: { w, i } });
+          await getSequelize().transaction(async (transaction) => {
+            await getSequelize().query(
+              "INSERT INTO sign_in_throttle (throttle_key, failures, window_started_at, updated_at) VALUES (?, 0, NOW(3), NOW(3))",
+              { replacements: [`backup-drill:${w}:${i}`], transaction },
+            );
+            await appendAudit({ event: "test.during_backup", actorId: null, payload: { w, i } }, transaction);
+          });
       });
       try {
         out = await ok(["backup"], LOAD);
@@ -322,12 +299,18 @@ describe("backup and restore", () => {
       await recordAudit({ event: "test.after_restore", actorId: null });
       return { result, next: await verifyAuditChain() };
     });
-    // A dump of the tables at different moments would give a head that is not the last entry.
+    // One moment: the head is the last entry, and every writer transaction in the dump is there whole.
     expect(check.result).toMatchObject({
       ok: true,
       headSeq: manifest.auditHead.seq,
       checked: manifest.auditHead.seq,
     });
+    const [whole] = await root<{ entries: bigint; throttle_rows: bigint }>(
+      `SELECT (SELECT COUNT(*) FROM \`${LOAD}\`.audit_log WHERE event = 'test.during_backup') AS entries,
+              (SELECT COUNT(*) FROM \`${LOAD}\`.sign_in_throttle WHERE throttle_key LIKE 'backup-drill:%') AS throttle_rows`,
+    );
+    expect(Number(whole!.throttle_rows)).toBe(Number(whole!.entries));
+    expect(Number(whole!.entries)).toBe(manifest.auditHead.seq - seqBefore);
     expect(check.next).toMatchObject({ ok: true, headSeq: manifest.auditHead.seq + 1 });
 
     // The app's account has its usual rights on the restored tables: the audit trail is append-only for it.
