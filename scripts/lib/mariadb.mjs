@@ -5,7 +5,8 @@ import os from "node:os";
 import path from "node:path";
 import { isRoot, run, startChild, waitFor, which } from "./util.mjs";
 
-function socketPath(baseDir) {
+/** The socket of the private server whose data lives under `baseDir` (start, test and the backup script agree on it). */
+export function socketPath(baseDir) {
   const preferred = path.join(baseDir, "mysqld.sock");
   // A Unix socket path must stay under 107 bytes; fall back to a short name in the temp folder.
   if (Buffer.byteLength(preferred) < 100) return preferred;
@@ -164,6 +165,13 @@ export const APPEND_ONLY_TABLES = ["audit_log"];
 /** Tables the app may only read: the audit chain head, which moves only when an entry is appended (a trigger). */
 export const READ_ONLY_TABLES = ["audit_head"];
 
+/** The rights the app's account gets on one table. */
+export function appTableRights(table) {
+  if (READ_ONLY_TABLES.includes(table)) return "SELECT";
+  if (APPEND_ONLY_TABLES.includes(table)) return "SELECT, INSERT";
+  return "SELECT, INSERT, UPDATE, DELETE";
+}
+
 /**
  * Gives the app's account exactly what it needs, table by table: read and write everywhere, but only read and
  * insert on the append-only tables, and no schema changes at all (the owner migrates). Run after migrating.
@@ -179,14 +187,9 @@ export async function grantAppPrivileges({ socket, database, user }) {
     .map((t) => t.trim())
     .filter(Boolean);
   const account = `${literal(user)}@'127.0.0.1'`;
-  const grants = tables.map((table) => {
-    const rights = READ_ONLY_TABLES.includes(table)
-      ? "SELECT"
-      : APPEND_ONLY_TABLES.includes(table)
-        ? "SELECT, INSERT"
-        : "SELECT, INSERT, UPDATE, DELETE";
-    return `GRANT ${rights} ON ${ident(database)}.${ident(table)} TO ${account};`;
-  });
+  const grants = tables.map(
+    (table) => `GRANT ${appTableRights(table)} ON ${ident(database)}.${ident(table)} TO ${account};`,
+  );
   // Stored procedures (the audit append) run with their definer's rights: the app may call them, nothing more.
   grants.push(`GRANT EXECUTE ON ${ident(database)}.* TO ${account};`);
   await sql(`REVOKE ALL PRIVILEGES, GRANT OPTION FROM ${account};\n${grants.join("\n")}\nFLUSH PRIVILEGES;`);
