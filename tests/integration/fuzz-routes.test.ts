@@ -555,6 +555,22 @@ describe("validation fuzz over every route handler (P1, S22)", () => {
 });
 
 describe("findings of the fuzz, kept as plain cases", () => {
+  it.each(["/api/v1/greases/%FF", "/api/v1/points/%ED%A0%80/qr.svg", "/api/v1/stock/labels/%C0%AF"])(
+    "%s (percent-encoding that does not decode) → 400 naming the path, not 500",
+    async (pathname) => {
+      const response = await new Client(app.url).request("GET", pathname);
+      expect(response.status).toBe(400);
+      expect(response.body.error).toMatchObject({ code: "malformed_path", fields: { path: [expect.any(String)] } });
+    },
+  );
+
+  it("a page address that does not decode → 400 with the security headers", async () => {
+    const response = await fetch(`${app.url}/points/%FF`, { redirect: "manual" });
+    expect(response.status).toBe(400);
+    expect(response.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(response.headers.get("content-security-policy")).toContain("frame-ancestors 'none'");
+  });
+
   it("POST /api/v1/greases with the JSON body null → 400, not 500", async () => {
     const response = await clients.get("lead")!.request("POST", "/api/v1/greases", { body: "null", headers: { "content-type": "application/json" } });
     expect(response.status).toBe(400);
