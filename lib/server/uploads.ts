@@ -58,6 +58,24 @@ export async function readUploadForm(request: Request, unreadableField: string):
 }
 
 /**
+ * What is wrong with the name an upload came with, or null. A browser sends the file's own name only, so a folder
+ * path, a control character or an over-long name means a hand-made request; it is refused rather than cleaned up.
+ */
+export function uploadNameProblem(name: string): string | null {
+  if (name.length > 255) return "The file name is longer than 255 characters.";
+  if (/[\u0000-\u001f\u007f]/.test(name)) return "The file name contains control characters.";
+  if (/[\\/]/.test(name)) return "The file name contains a folder path (/ or \\); send the file under its own name.";
+  if (/^\.+$/.test(name.trim())) return "The file name is not a name.";
+  return null;
+}
+
+/** A name ending in another type's extension (`sheet.exe`, `photo.png`), though the content is a PDF. */
+function misleadingExtension(name: string): string | null {
+  const ext = /\.([A-Za-z]{2,4})$/.exec(name)?.[1];
+  return ext && ext.toLowerCase() !== "pdf" ? ext : null;
+}
+
+/**
  * Checks an uploaded file by its content (the name and the declared type are not trusted), stores it
  * under a generated name outside public/, and records it. Throws 413 / 415 / 400 before anything is written.
  */
@@ -72,6 +90,8 @@ export async function storePdf(file: unknown, field: string, userId: string | nu
 export async function storePdfFile(file: unknown, field: string, userId: string | null, transaction?: Transaction): Promise<{ id: number; path: string }> {
   const { StoredDocument } = boundModels();
   if (!(file instanceof File) || file.size === 0) throw new ValidationError({ [field]: ["Choose a PDF file."] });
+  const nameProblem = uploadNameProblem(file.name);
+  if (nameProblem) throw new ValidationError({ [field]: [nameProblem] }, nameProblem);
   if (file.size > PDF_LIMIT_BYTES) throw new PayloadTooLargeError(PDF_LIMIT_BYTES, field);
   const buffer = Buffer.from(await file.arrayBuffer());
   const type = await fileTypeFromBuffer(buffer);
@@ -79,6 +99,11 @@ export async function storePdfFile(file: unknown, field: string, userId: string 
     throw new UnsupportedMediaTypeError("Only PDF files are accepted; this file's content is not a PDF.", {
       [field]: ["The file's content is not a PDF."],
     });
+  }
+  const extension = misleadingExtension(file.name);
+  if (extension) {
+    const message = `The file is named .${extension}, but only PDF files (.pdf) are accepted; rename it if it is a PDF.`;
+    throw new UnsupportedMediaTypeError(message, { [field]: [message] });
   }
   const storedName = randomUUID();
   await mkdir(uploadDir(), { recursive: true });

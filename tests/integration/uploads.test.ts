@@ -3,12 +3,14 @@ import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
 import { Client, ROOT, rootQuery } from "./helpers";
 
-// Uploads (reliability.md §A.3 S23, S24): an oversize file is refused with a 4xx naming the field, and a refused
-// upload leaves no file and no row behind.
+// Uploads (reliability.md §A.3 S23, S24): the type is decided by the content, an oversize file and a hand-made name
+// are refused with a 4xx naming the field, and a refused upload leaves no file and no row behind.
 
 const LIMIT = 10 * 1024 * 1024;
 const UPLOAD_DIR = process.env.UPLOAD_DIR!;
 const PDF = Buffer.from("%PDF-1.4\n1 0 obj<</Type/Catalog>>endobj\ntrailer<</Root 1 0 R>>\n%%EOF\n");
+const PNG = Buffer.from("89504e470d0a1a0a0000000d4948445200000001000000010806000000", "hex");
+const EXE = Buffer.from("MZ\x90\x00\x03\x00\x00\x00 this program cannot be run in DOS mode", "latin1");
 
 const lead = new Client();
 let greaseId = 0;
@@ -96,6 +98,27 @@ async function expectRefused(send: () => Promise<Awaited<ReturnType<typeof post>
   return response;
 }
 
+describe("uploads: renamed type (checked by content, not by name or declared type)", () => {
+  it("a PDF renamed .exe → 415 naming file, nothing stored", async () => {
+    const response = await expectRefused(() => post(sheetUrl(), dataSheet({ filename: "sheet.exe", body: PDF, type: "application/x-msdownload" })), 415, /named \.exe/);
+    expect(response.body.error!.code).toBe("unsupported_media_type");
+  });
+
+  it("a PNG declared as application/pdf and named .pdf → 415, nothing stored", async () => {
+    await expectRefused(() => post(sheetUrl(), dataSheet({ filename: "safety-sheet.pdf", body: PNG, type: "application/pdf" })), 415, /not a PDF/);
+  });
+
+  it("an executable named letter.pdf sent as evidence → 415, no evidence row", async () => {
+    const [a, b] = await rootQuery<{ id: number }>("SELECT id FROM grease ORDER BY id LIMIT 2");
+    const payload = JSON.stringify({ greaseAId: a!.id, greaseBId: b!.id, kind: "supplier_statement", verdict: "compatible", title: "Letter of 2026" });
+    await expectRefused(
+      () => post("/api/v1/compatibility/evidence", multipart([{ name: "payload", value: payload }, { name: "file", filename: "letter.pdf", body: EXE }])),
+      415,
+      /not a PDF/,
+    );
+  });
+});
+
 describe("uploads: oversize", () => {
   const atLimit = Buffer.concat([PDF, Buffer.alloc(LIMIT - PDF.length, 0x20)]);
   const overLimit = Buffer.concat([atLimit, Buffer.from(" ")]);
@@ -120,6 +143,21 @@ describe("uploads: oversize", () => {
     expect(response.status).toBe(201);
     const [row] = await rootQuery<{ size_bytes: number }>("SELECT size_bytes FROM stored_document WHERE id = ?", [response.body.documentId]);
     expect(Number(row!.size_bytes)).toBe(LIMIT);
+  });
+});
+
+describe("uploads: path tricks in the file name", () => {
+  it.each([
+    ["a relative path", "../../x.pdf", /folder path/],
+    ["a Windows relative path", "..\\..\\x.pdf", /folder path/],
+    ["an absolute path", "/etc/cron.d/x.pdf", /folder path/],
+    ["a Windows absolute path", "C:\\Windows\\x.pdf", /folder path/],
+    ["a NUL byte", "sheet.pdf\u0000.png", /control characters/],
+    ["a very long name", `${"n".repeat(300)}.pdf`, /longer than 255/],
+    ["dots only", "..", /not a name/],
+  ])("%s (%j) → 400 naming file, nothing stored", async (_label, filename, message) => {
+    const response = await expectRefused(() => post(sheetUrl(), dataSheet({ filename, body: PDF })), 400, message);
+    expect(response.body.error!.code).toBe("validation_failed");
   });
 });
 
