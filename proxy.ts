@@ -6,7 +6,12 @@ import { NextResponse, type NextRequest } from "next/server";
  */
 export function proxy(request: NextRequest) {
   const malformed = malformedPathResponse(request);
-  if (malformed) return withSecurityHeaders(malformed, request, "default-src 'none'; frame-ancestors 'none'; object-src 'none'; base-uri 'none'");
+  if (malformed)
+    return withSecurityHeaders(
+      malformed,
+      request,
+      "default-src 'none'; frame-ancestors 'none'; object-src 'none'; base-uri 'none'",
+    );
   const nonce = btoa(crypto.randomUUID());
   const dev = process.env.NODE_ENV !== "production";
   const csp = [
@@ -57,10 +62,19 @@ function malformedPathResponse(request: NextRequest): NextResponse | null {
     const message = "The address has broken percent-encoding.";
     if (pathname.startsWith("/api/"))
       return NextResponse.json(
-        { error: { code: "malformed_path", message, fields: { path: ["Percent-encode the address as UTF-8."] } } },
+        {
+          error: {
+            code: "malformed_path",
+            message,
+            fields: { path: ["Percent-encode the address as UTF-8."] },
+          },
+        },
         { status: 400 },
       );
-    return new NextResponse(message, { status: 400, headers: { "Content-Type": "text/plain; charset=utf-8" } });
+    return new NextResponse(message, {
+      status: 400,
+      headers: { "Content-Type": "text/plain; charset=utf-8" },
+    });
   }
 }
 
