@@ -20,8 +20,8 @@ beforeAll(async () => {
   const created = await lead.request("POST", "/api/v1/greases", {
     json: {
       code: `UP-${Date.now()}`,
-      name: "Upload test grease",
-      supplier: "Upload Oils",
+      name: "Data sheet test grease",
+      supplier: "Sheet Oils",
       thickener: "calcium_sulfonate",
       baseOilType: "mineral",
       viscosity40: 220,
