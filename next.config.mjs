@@ -4,7 +4,9 @@ const nextConfig = {
   serverExternalPackages: ["sequelize", "mariadb", "mysql2", "@node-rs/argon2", "nodemailer", "pdfkit"],
   poweredByHeader: false,
   // Forms that carry a delivery note (PDF, at most 10 MB, checked again on the server) post through server actions.
-  experimental: { serverActions: { bodySizeLimit: "11mb" } },
+  // The proxy reads request bodies too and silently cuts them at its own limit (10 MB by default), which turned a
+  // file near the limit into an unreadable form: it gets the same room, and the upload code counts the 10 MB itself.
+  experimental: { serverActions: { bodySizeLimit: "11mb" }, proxyClientMaxBodySize: "11mb" },
   reactStrictMode: true,
   // A fixed build id keeps two instances built from the same commit interchangeable behind a balancer.
   // Static files get the same baseline headers as pages (the proxy adds the CSP to everything else).

@@ -5,6 +5,13 @@ import { NextResponse, type NextRequest } from "next/server";
  * Not an authorization layer: pages, actions and route handlers check the session themselves.
  */
 export function proxy(request: NextRequest) {
+  const malformed = malformedPathResponse(request);
+  if (malformed)
+    return withSecurityHeaders(
+      malformed,
+      request,
+      "default-src 'none'; frame-ancestors 'none'; object-src 'none'; base-uri 'none'",
+    );
   const nonce = btoa(crypto.randomUUID());
   const dev = process.env.NODE_ENV !== "production";
   const csp = [
@@ -27,7 +34,10 @@ export function proxy(request: NextRequest) {
   // Lets a page send a signed-out visitor to sign-in and then back to where they were going.
   requestHeaders.set("x-pathname", request.nextUrl.pathname + request.nextUrl.search);
 
-  const response = NextResponse.next({ request: { headers: requestHeaders } });
+  return withSecurityHeaders(NextResponse.next({ request: { headers: requestHeaders } }), request, csp);
+}
+
+function withSecurityHeaders(response: NextResponse, request: NextRequest, csp: string) {
   response.headers.set("Content-Security-Policy", csp);
   response.headers.set("X-Content-Type-Options", "nosniff");
   response.headers.set("Referrer-Policy", "same-origin");
@@ -37,6 +47,35 @@ export function proxy(request: NextRequest) {
     response.headers.set("Strict-Transport-Security", "max-age=31536000; includeSubDomains");
   }
   return response;
+}
+
+/**
+ * A path whose percent-encoding does not decode (e.g. `/api/v1/greases/%FF`) would make the router fail while
+ * decoding the path parameters, which Next answers with a bare 500. Refused here with a 400 instead.
+ */
+function malformedPathResponse(request: NextRequest): NextResponse | null {
+  const pathname = request.nextUrl.pathname;
+  try {
+    decodeURIComponent(pathname);
+    return null;
+  } catch {
+    const message = "The address has broken percent-encoding.";
+    if (pathname.startsWith("/api/"))
+      return NextResponse.json(
+        {
+          error: {
+            code: "malformed_path",
+            message,
+            fields: { path: ["Percent-encode the address as UTF-8."] },
+          },
+        },
+        { status: 400 },
+      );
+    return new NextResponse(message, {
+      status: 400,
+      headers: { "Content-Type": "text/plain; charset=utf-8" },
+    });
+  }
 }
 
 export const config = {

@@ -49,8 +49,9 @@ export class UnsupportedMediaTypeError extends AppError {
   }
 }
 export class PayloadTooLargeError extends AppError {
-  constructor(limitBytes: number) {
-    super(413, "payload_too_large", `The file is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB.`);
+  constructor(limitBytes: number, field?: string) {
+    const message = `The file is larger than the limit of ${Math.round(limitBytes / 1024 / 1024)} MB.`;
+    super(413, "payload_too_large", message, field ? { [field]: [message] } : undefined);
   }
 }
 export class TooManyRequestsError extends AppError {

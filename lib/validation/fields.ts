@@ -29,3 +29,7 @@ export function requiredNumber(label: string, min: number, max: number, options:
 export function optionalText(max: number) {
   return z.preprocess(blankToUndefined, z.string().trim().max(max, `At most ${max} characters.`).optional());
 }
+
+/** For `superRefine(…, { when })`: cross-field rules run on any object, even one with bad fields. */
+export const isObjectPayload = (payload: { value: unknown }) =>
+  typeof payload.value === "object" && payload.value !== null && !Array.isArray(payload.value);

@@ -7,7 +7,7 @@ import {
   SOLID_ADDITIVES,
   THICKENERS,
 } from "@/lib/domain/catalogue";
-import { optionalNumber, optionalText, requiredNumber } from "./fields";
+import { isObjectPayload, optionalNumber, optionalText, requiredNumber } from "./fields";
 
 export const packInputSchema = z.object({
   /** Present when an existing pack is kept or changed; absent for a new pack. */
@@ -74,8 +74,9 @@ export const greaseSchema = greaseFieldsSchema
     solidAdditives: greaseFieldsSchema.shape.solidAdditives.default([]),
     packs: greaseFieldsSchema.shape.packs.default([]),
   })
-  // `when`: check across fields even when another field is already wrong, so every problem shows at once.
-  .superRefine(checkGreaseFields, { when: () => true });
+  // `when`: check across fields even when another field is already wrong, so every problem shows at once; but only
+  // when the body is an object at all (`null` or a list is answered by the object check alone).
+  .superRefine(checkGreaseFields, { when: isObjectPayload });
 export type GreaseInput = z.output<typeof greaseSchema>;
 export type GreaseFormValues = z.input<typeof greaseSchema>;
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { labelCodeSchema } from "./stock";
-import { optionalNumber, optionalText } from "./fields";
+import { isObjectPayload, optionalNumber, optionalText } from "./fields";
 
 export const serviceSchema = z.object({
   greaseId: z.number({ error: "Choose the grease in your hand (greaseId)." }).int().positive(),
@@ -91,5 +91,5 @@ export const pointSchema = z
     if (!v.sealedForLife && v.assignedGreaseId === undefined) {
       ctx.addIssue({ code: "custom", path: ["assignedGreaseId"], message: "Choose the grease for this point (or mark it sealed for life)." });
     }
-  }, { when: () => true });
+  }, { when: isObjectPayload });
 export type PointInput = z.infer<typeof pointSchema>;

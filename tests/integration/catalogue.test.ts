@@ -152,7 +152,7 @@ describe("data sheet uploads", () => {
 
   it("stores a real PDF under a generated name and serves it as an attachment", async () => {
     const grease = (await lead.request("POST", "/api/v1/greases", { json: newGrease(code()) })).body;
-    const response = await upload(lead, grease.id, pdf, "../../etc/Sicherheitsdatenblatt ü.pdf");
+    const response = await upload(lead, grease.id, pdf, "Sicherheitsdatenblatt ü.pdf");
     expect(response.status).toBe(201);
     const [row] = await rootQuery<{ stored_name: string; original_name: string }>("SELECT stored_name, original_name FROM stored_document WHERE id = ?", [response.body.documentId]);
     expect(row!.stored_name).toMatch(/^[0-9a-f-]{36}$/);

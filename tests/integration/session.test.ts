@@ -1,5 +1,7 @@
 import { createHash } from "node:crypto";
 import { afterAll, describe, expect, it } from "vitest";
+import { SESSION_TIMEOUTS } from "@/lib/domain/auth/session-policy";
+import { ROLES } from "@/lib/domain/permissions";
 import { Client, createUser, rootQuery, uniqueEmail } from "./helpers";
 
 const sha256 = (s: string) => createHash("sha256").update(s).digest("hex");
@@ -54,7 +56,7 @@ describe("POST /api/v1/session", () => {
     expect(rows[0]!.id).not.toContain(token);
   });
 
-  it("DELETE ends the session on the server; replaying the cookie gives 401", async () => {
+  it("logout replay: DELETE ends the session on the server; replaying the cookie gives 401", async () => {
     const client = new Client();
     await client.signIn("tech@example.com");
     const token = client.cookies.get("gl_session")!;
@@ -65,7 +67,7 @@ describe("POST /api/v1/session", () => {
     expect(await rootQuery("SELECT id FROM user_session WHERE id = ?", [sha256(token)])).toHaveLength(0);
   });
 
-  it("a new sign-in gives a new token; a planted cookie is not adopted", async () => {
+  it("fixation: a new sign-in gives a new token; a planted cookie is not adopted", async () => {
     const client = new Client();
     client.cookies.set("gl_session", "planted-value-chosen-by-attacker");
     await client.signIn("auditor@example.com");
@@ -74,10 +76,41 @@ describe("POST /api/v1/session", () => {
     planted.cookies.set("gl_session", "planted-value-chosen-by-attacker");
     expect((await planted.request("GET", "/api/v1/me")).status).toBe(401);
   });
+
+  it("fixation: a real session token held before sign-in is ended by the sign-in", async () => {
+    // Someone signs in on a shared device (or hands a victim their own token); the next person signs in there.
+    const first = await createUser({ email: uniqueEmail("before"), role: "technician" });
+    const second = await createUser({ email: uniqueEmail("after"), role: "clerk" });
+    const device = new Client();
+    await device.signIn(first.email, first.password);
+    const before = device.cookies.get("gl_session")!;
+    expect((await device.signIn(second.email, second.password)).status).toBe(200);
+    const after = device.cookies.get("gl_session")!;
+    expect(after).not.toBe(before);
+    expect((await device.request("GET", "/api/v1/me")).body.user.email).toBe(second.email);
+    const old = new Client();
+    old.cookies.set("gl_session", before);
+    expect((await old.request("GET", "/api/v1/me")).status).toBe(401);
+    expect(await rootQuery("SELECT id FROM user_session WHERE id = ?", [sha256(before)])).toHaveLength(0);
+  });
+
+  it("logout replay: the ended cookie cannot write either, and a second logout changes nothing", async () => {
+    const client = new Client();
+    await client.signIn("lead@example.com");
+    const token = client.cookies.get("gl_session")!;
+    expect((await client.request("DELETE", "/api/v1/session")).status).toBe(204);
+    const replay = new Client();
+    replay.cookies.set("gl_session", token);
+    const write = await replay.request("POST", "/api/v1/calculations/consistency", { json: { workedPenetration: 280 } });
+    expect(write.status).toBe(401);
+    expect(write.body.error.code).toBe("unauthenticated");
+    expect((await replay.request("DELETE", "/api/v1/session")).status).toBe(204);
+    expect((await replay.request("GET", "/api/v1/me")).status).toBe(401);
+  });
 });
 
 describe("sessions end on the server", () => {
-  it("a disabled user's session gives 401 at once", async () => {
+  it("disabling ends sessions: a disabled user's session gives 401 at once", async () => {
     const user = await createUser({ email: uniqueEmail("disabled"), role: "technician" });
     const client = new Client();
     expect((await client.signIn(user.email, user.password)).status).toBe(200);
@@ -87,7 +120,7 @@ describe("sessions end on the server", () => {
     expect(await rootQuery("SELECT id FROM user_session WHERE user_id = ?", [user.id])).toHaveLength(0);
   });
 
-  it("an idle session expires (technician: 30 minutes without a request)", async () => {
+  it("idle timeout: a session expires after 30 minutes without a request (technician)", async () => {
     const user = await createUser({ email: uniqueEmail("idle"), role: "technician" });
     const client = new Client();
     await client.signIn(user.email, user.password);
@@ -97,7 +130,7 @@ describe("sessions end on the server", () => {
     expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
   });
 
-  it("a session past its absolute limit expires although it is in use (lead: 8 hours)", async () => {
+  it("absolute timeout: a session past its limit expires although it is in use (lead: 8 hours)", async () => {
     const user = await createUser({ email: uniqueEmail("absolute"), role: "lead" });
     const client = new Client();
     await client.signIn(user.email, user.password);
@@ -107,6 +140,30 @@ describe("sessions end on the server", () => {
       user.id,
     ]);
     expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+  });
+
+  it.each(ROLES)("idle timeout: %s — usable 5 s before the idle limit, gone 1 s after it", async (role) => {
+    const user = await createUser({ email: uniqueEmail(`idle-${role}`), role });
+    const client = new Client();
+    expect((await client.signIn(user.email, user.password)).status).toBe(200);
+    const idleMs = SESSION_TIMEOUTS[role].idleMinutes * 60_000;
+    await rootQuery("UPDATE user_session SET last_seen_at = ? WHERE user_id = ?", [new Date(Date.now() - idleMs + 5_000), user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(200);
+    await rootQuery("UPDATE user_session SET last_seen_at = ? WHERE user_id = ?", [new Date(Date.now() - idleMs - 1_000), user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+    expect(await rootQuery("SELECT id FROM user_session WHERE user_id = ?", [user.id])).toHaveLength(0);
+  });
+
+  it.each(ROLES)("absolute timeout: %s — in use all along, usable 5 s before the limit, gone 1 s after it", async (role) => {
+    const user = await createUser({ email: uniqueEmail(`absolute-${role}`), role });
+    const client = new Client();
+    expect((await client.signIn(user.email, user.password)).status).toBe(200);
+    const absoluteMs = SESSION_TIMEOUTS[role].absoluteHours * 3_600_000;
+    await rootQuery("UPDATE user_session SET created_at = ?, last_seen_at = ? WHERE user_id = ?", [new Date(Date.now() - absoluteMs + 5_000), new Date(), user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(200);
+    await rootQuery("UPDATE user_session SET created_at = ?, last_seen_at = ? WHERE user_id = ?", [new Date(Date.now() - absoluteMs - 1_000), new Date(), user.id]);
+    expect((await client.request("GET", "/api/v1/me")).status).toBe(401);
+    expect(await rootQuery("SELECT id FROM user_session WHERE user_id = ?", [user.id])).toHaveLength(0);
   });
 
   it("no session gives 401 with the API error body", async () => {

@@ -21,7 +21,7 @@ async function adminId() {
 }
 
 describe("user management ends sessions at once", () => {
-  it("a role change ends every session of that user", async () => {
+  it("role change ends sessions: a role change ends every session of that user", async () => {
     const user = await createUser({ email: uniqueEmail("promoted"), role: "technician" });
     const phone = new Client();
     const desk = new Client();
@@ -38,7 +38,7 @@ describe("user management ends sessions at once", () => {
     expect((await again.request("GET", "/api/v1/me")).body.user.role).toBe("lead");
   });
 
-  it("disabling ends the session, and the disabled person cannot sign in with the right password", async () => {
+  it("disabling ends sessions: the session ends, and the disabled person cannot sign in with the right password", async () => {
     const user = await createUser({ email: uniqueEmail("leaver"), role: "clerk" });
     const client = new Client();
     await client.signIn(user.email, user.password);

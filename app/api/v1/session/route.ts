@@ -21,8 +21,10 @@ export const POST = apiRoute({ public: true, body: signInSchema }, async ({ requ
     if (result.reason === "too_many_attempts") throw new TooManyRequestsError(result.retryAfterSeconds);
     throw new UnauthorizedError("The e-mail address or the password is not right.", "invalid_credentials");
   }
-  const response = jsonResponse({ user: result.user });
   const cookie = sessionCookie();
+  // Whatever session this browser held before is ended: a sign-in never leaves the old token usable.
+  await invalidateSessionToken(request.cookies.get(cookie.name)?.value);
+  const response = jsonResponse({ user: result.user });
   response.cookies.set(cookie.name, result.token, cookie.attributes);
   return response;
 });

@@ -1,8 +1,8 @@
 import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
-import { PayloadTooLargeError, UnsupportedMediaTypeError, ValidationError } from "@/lib/server/errors";
+import { ValidationError } from "@/lib/server/errors";
 import { createEvidence, listEvidence } from "@/lib/server/queries/compatibility";
-import { PDF_LIMIT_BYTES, discardStoredFile, storePdf } from "@/lib/server/uploads";
+import { discardStoredFile, readUploadForm, storePdf } from "@/lib/server/uploads";
 import { evidenceSchema } from "@/lib/validation/compatibility";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
 
@@ -15,13 +15,7 @@ export const GET = apiRoute({ action: "catalogue.read" }, async () => jsonRespon
  * `file` (the report or letter, PDF checked by content). Nothing is stored unless everything is valid.
  */
 export const POST = apiRoute({ action: "compatibility.rules.manage" }, async ({ request, user }) => {
-  if (!/^multipart\/form-data/i.test(request.headers.get("content-type") ?? "")) {
-    throw new UnsupportedMediaTypeError("Send the evidence as multipart/form-data.");
-  }
-  if (Number(request.headers.get("content-length") ?? "0") > PDF_LIMIT_BYTES) throw new PayloadTooLargeError(PDF_LIMIT_BYTES);
-  const form = await request.formData().catch(() => {
-    throw new ValidationError({ payload: ["The form could not be read."] });
-  });
+  const form = await readUploadForm(request, "payload");
   let raw: unknown;
   try {
     raw = JSON.parse(String(form.get("payload") ?? ""));
