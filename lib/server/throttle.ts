@@ -57,25 +57,41 @@ export async function checkThrottle(
   return { ...worst, counted: rows.map((r) => r.throttle_key) };
 }
 
+/**
+ * Two first failures of one key can deadlock: both lock the gap where its row would be, then both insert. A deadlock
+ * or lock wait timeout runs the count again (a few times), so a burst of failures is counted and never answers 500.
+ */
+const RETRYABLE_ERRNOS = new Set([1213, 1205]);
+const errnoOf = (error: unknown) =>
+  (error as { original?: { errno?: number } }).original?.errno ?? (error as { parent?: { errno?: number } }).parent?.errno;
+
 /** Counts one failed attempt against every key, locking the rows in a fixed order. */
 export async function recordThrottleFailure(keys: ThrottleKey[], now: Date): Promise<void> {
   const sorted = [...keys].sort((a, b) => a.key.localeCompare(b.key));
-  await getSequelize().transaction(async (transaction: Transaction) => {
-    for (const { key, rule } of sorted) {
-      const [row] = await getSequelize().query<Row>(
-        "SELECT throttle_key, failures, window_started_at, locked_until FROM sign_in_throttle WHERE throttle_key = ? FOR UPDATE",
-        { replacements: [key], type: QueryTypes.SELECT, transaction },
-      );
-      const next = recordFailure(toState(row), now, rule);
-      await getSequelize().query(
-        `INSERT INTO sign_in_throttle (throttle_key, failures, window_started_at, locked_until, updated_at)
-         VALUES (?, ?, ?, ?, ?)
-         ON DUPLICATE KEY UPDATE failures = VALUES(failures), window_started_at = VALUES(window_started_at),
-           locked_until = VALUES(locked_until), updated_at = VALUES(updated_at)`,
-        { replacements: [key, next.failures, next.windowStartedAt, next.lockedUntil, now], transaction },
-      );
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await getSequelize().transaction(async (transaction: Transaction) => {
+        for (const { key, rule } of sorted) {
+          const [row] = await getSequelize().query<Row>(
+            "SELECT throttle_key, failures, window_started_at, locked_until FROM sign_in_throttle WHERE throttle_key = ? FOR UPDATE",
+            { replacements: [key], type: QueryTypes.SELECT, transaction },
+          );
+          const next = recordFailure(toState(row), now, rule);
+          await getSequelize().query(
+            `INSERT INTO sign_in_throttle (throttle_key, failures, window_started_at, locked_until, updated_at)
+             VALUES (?, ?, ?, ?, ?)
+             ON DUPLICATE KEY UPDATE failures = VALUES(failures), window_started_at = VALUES(window_started_at),
+               locked_until = VALUES(locked_until), updated_at = VALUES(updated_at)`,
+            { replacements: [key, next.failures, next.windowStartedAt, next.lockedUntil, now], transaction },
+          );
+        }
+      });
+      return;
+    } catch (error) {
+      if (attempt >= 4 || !RETRYABLE_ERRNOS.has(errnoOf(error) ?? 0)) throw error;
+      await new Promise((r) => setTimeout(r, 10 * attempt + Math.random() * 20));
     }
-  });
+  }
 }
 
 export async function clearThrottle(key: string): Promise<void> {

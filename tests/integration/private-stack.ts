@@ -129,7 +129,10 @@ export async function startPrivateStack(label: string, options: { pollMs?: numbe
           const parts = buffer.split("\n");
           buffer = parts.pop() ?? "";
           lines.push(...parts);
-          if (process.env.GL_TEST_VERBOSE) for (const line of parts) process.stdout.write(`[${label}:${port}] ${line}\n`);
+          for (const line of parts) {
+            // An unexpected error is always shown: it is what a failing assertion here usually comes down to.
+            if (process.env.GL_TEST_VERBOSE || line.includes('"unexpected_error"')) process.stdout.write(`[${label}:${port}] ${line}\n`);
+          }
         });
       }
       const app: AppProcess = {
