@@ -121,22 +121,32 @@ function connectionFailure(error: unknown): { name: string; code: string } | nul
   return null;
 }
 
-/** An outage fails every request: the log gets its first failure, then one line a while with the count since. */
+/**
+ * An outage fails every request: the log gets its first failure, then one line a while with the count since. A
+ * failure after the database has answered again starts a new outage and is logged at once.
+ */
 const OUTAGE_LOG_EVERY_MS = 10_000;
-const outage = ((globalThis as { __greaseledgerOutageLog?: { lastAt: number; since: number } }).__greaseledgerOutageLog ??= {
+const outage = ((globalThis as { __greaseledgerOutageLog?: { lastAt: number; since: number; answeredSince: boolean } }).__greaseledgerOutageLog ??= {
   lastAt: 0,
   since: 0,
+  answeredSince: true,
 });
+
+/** Called when a statement succeeds (the session pool's, which starts every request): an outage is over. */
+export function noteDatabaseAnswered(): void {
+  outage.answeredSince = true;
+}
 
 function logDatabaseUnavailable(failure: { name: string; code: string }): void {
   const now = Date.now();
-  if (now - outage.lastAt < OUTAGE_LOG_EVERY_MS) {
+  if (!outage.answeredSince && now - outage.lastAt < OUTAGE_LOG_EVERY_MS) {
     outage.since += 1;
     return;
   }
   log("error", "database_unavailable", { ...failure, alsoRefusedSinceLastLine: outage.since });
   outage.lastAt = now;
   outage.since = 0;
+  outage.answeredSince = false;
 }
 
 /** Maps anything thrown to an AppError; unexpected errors are logged and become a plain sentence. */

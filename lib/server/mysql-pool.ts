@@ -1,6 +1,7 @@
 import "server-only";
 import mysql from "mysql2/promise";
 import { getEnv } from "@/lib/env";
+import { noteDatabaseAnswered } from "./errors";
 
 type Holder = { __greaseledgerMysqlPool?: mysql.Pool };
 const holder = globalThis as Holder;
@@ -39,6 +40,7 @@ export async function sessionStatement<T extends mysql.QueryResult>(sql: string,
   try {
     const [result] = await connection.query<T>({ sql, timeout: SESSION_STATEMENT_TIMEOUT_MS }, values);
     connection.release();
+    noteDatabaseAnswered();
     return result;
   } catch (error) {
     const code = (error as { code?: string }).code;

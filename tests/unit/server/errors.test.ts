@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it, vi } from "vitest";
-import { toAppError } from "@/lib/server/errors";
+import { noteDatabaseAnswered, toAppError } from "@/lib/server/errors";
 
 // The shapes below are what the drivers throw (seen in the fault tests, tests/integration/faults.test.ts).
 const driverError = (code: string, sqlState: string, message: string) =>
@@ -36,6 +36,7 @@ describe("toAppError and a database that went away", () => {
     vi.useFakeTimers();
     try {
       const later = Date.now() + 86_400_000; // far from any earlier line of this process
+      noteDatabaseAnswered();
       const lines: string[] = [];
       vi.spyOn(console, "error").mockImplementation((line: string) => void lines.push(line));
       const refused = () => toAppError(Object.assign(new Error("connect ECONNREFUSED"), { code: "ECONNREFUSED" }));
@@ -47,6 +48,13 @@ describe("toAppError and a database that went away", () => {
       const outage = lines.filter((l) => l.includes("database_unavailable"));
       expect(outage).toHaveLength(2);
       expect(JSON.parse(outage[1]!)).toMatchObject({ level: "error", code: "ECONNREFUSED", alsoRefusedSinceLastLine: 49 });
+      // The database answered again: the next failure is a new outage, logged at once.
+      vi.setSystemTime(later + 12_000);
+      refused();
+      expect(lines.filter((l) => l.includes("database_unavailable"))).toHaveLength(2);
+      noteDatabaseAnswered();
+      refused();
+      expect(lines.filter((l) => l.includes("database_unavailable"))).toHaveLength(3);
     } finally {
       vi.useRealTimers();
     }
