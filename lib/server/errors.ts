@@ -83,17 +83,82 @@ const CONNECTION_ERRORS = new Set([
   "SequelizeHostNotReachableError",
   "SequelizeAccessDeniedError",
 ]);
-const CONNECTION_CODES = new Set(["ECONNREFUSED", "ETIMEDOUT", "PROTOCOL_CONNECTION_LOST", "ER_CON_COUNT_ERROR", "ECONNRESET"]);
+const CONNECTION_CODES = new Set([
+  "ECONNREFUSED",
+  "ETIMEDOUT",
+  "ECONNRESET",
+  "EPIPE",
+  "EHOSTUNREACH",
+  "ENETUNREACH",
+  // mysql2 (the session pool)
+  "PROTOCOL_CONNECTION_LOST",
+  "PROTOCOL_SEQUENCE_TIMEOUT",
+  "ER_CON_COUNT_ERROR",
+  // the mariadb driver (Sequelize and the bulk-read pool)
+  "ER_SOCKET_UNEXPECTED_CLOSE",
+  "ER_SOCKET_TIMEOUT",
+  "ER_CONNECTION_TIMEOUT",
+  "ER_GET_CONNECTION_TIMEOUT",
+  "ER_CMD_CONNECTION_CLOSED",
+  "ER_CONNECTION_ALREADY_CLOSED",
+  "ER_CMD_NOT_EXECUTED_DESTROYED",
+]);
+
+type DriverError = { name?: string; code?: string; sqlState?: string; parent?: unknown; original?: unknown; cause?: unknown };
+
+/**
+ * The name and code of a lost or refused database connection, looking through Sequelize's wrapper to the driver's
+ * error (a connection dropped mid-statement arrives as a SequelizeDatabaseError). SQLSTATE class 08 is "connection
+ * exception" in the SQL standard.
+ */
+function connectionFailure(error: unknown): { name: string; code: string } | null {
+  let current = error as DriverError | null | undefined;
+  for (let depth = 0; current && typeof current === "object" && depth < 4; depth++) {
+    const name = current.name ?? "";
+    const code = current.code ?? "";
+    if (CONNECTION_ERRORS.has(name) || CONNECTION_CODES.has(code) || current.sqlState?.startsWith("08")) return { name, code };
+    current = (current.parent ?? current.original ?? current.cause) as DriverError | undefined;
+  }
+  return null;
+}
+
+/**
+ * An outage fails every request: the log gets its first failure, then one line a while with the count since. A
+ * failure after the database has answered again starts a new outage and is logged at once.
+ */
+const OUTAGE_LOG_EVERY_MS = 10_000;
+const outage = ((globalThis as { __greaseledgerOutageLog?: { lastAt: number; since: number; answeredSince: boolean } }).__greaseledgerOutageLog ??= {
+  lastAt: 0,
+  since: 0,
+  answeredSince: true,
+});
+
+/** Called when a statement succeeds (the session pool's, which starts every request): an outage is over. */
+export function noteDatabaseAnswered(): void {
+  outage.answeredSince = true;
+}
+
+function logDatabaseUnavailable(failure: { name: string; code: string }): void {
+  const now = Date.now();
+  if (!outage.answeredSince && now - outage.lastAt < OUTAGE_LOG_EVERY_MS) {
+    outage.since += 1;
+    return;
+  }
+  log("error", "database_unavailable", { ...failure, alsoRefusedSinceLastLine: outage.since });
+  outage.lastAt = now;
+  outage.since = 0;
+  outage.answeredSince = false;
+}
 
 /** Maps anything thrown to an AppError; unexpected errors are logged and become a plain sentence. */
 export function toAppError(error: unknown): AppError {
   if (error instanceof AppError) return error;
-  const name = (error as { name?: string } | null)?.name ?? "";
-  const code = (error as { code?: string } | null)?.code ?? "";
-  if (CONNECTION_ERRORS.has(name) || CONNECTION_CODES.has(code)) {
-    log("error", "database_unavailable", { name, code });
+  const failure = connectionFailure(error);
+  if (failure) {
+    logDatabaseUnavailable(failure);
     return new ServiceUnavailableError();
   }
+  const name = (error as { name?: string } | null)?.name ?? "";
   log("error", "unexpected_error", {
     name,
     message: error instanceof Error ? error.message : String(error),

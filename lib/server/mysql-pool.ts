@@ -1,6 +1,7 @@
 import "server-only";
 import mysql from "mysql2/promise";
 import { getEnv } from "@/lib/env";
+import { noteDatabaseAnswered } from "./errors";
 
 type Holder = { __greaseledgerMysqlPool?: mysql.Pool };
 const holder = globalThis as Holder;
@@ -23,4 +24,28 @@ export function getMysqlPool(): mysql.Pool {
     });
   }
   return holder.__greaseledgerMysqlPool;
+}
+
+/** How long the session check may wait for the server once its statement is sent. */
+export const SESSION_STATEMENT_TIMEOUT_MS = 3000;
+
+/**
+ * One short statement through the session pool that gives up after `SESSION_STATEMENT_TIMEOUT_MS`. Every signed-in
+ * request starts with the session check, so a server that stopped answering (frozen, or cut off by the network:
+ * the socket stays open and mysql2 has no socket timeout) turns into a 503 within seconds instead of a request that
+ * hangs. A connection that timed out still has the statement queued on it and is destroyed, never reused.
+ */
+export async function sessionStatement<T extends mysql.QueryResult>(sql: string, values: unknown[]): Promise<T> {
+  const connection = await getMysqlPool().getConnection();
+  try {
+    const [result] = await connection.query<T>({ sql, timeout: SESSION_STATEMENT_TIMEOUT_MS }, values);
+    connection.release();
+    noteDatabaseAnswered();
+    return result;
+  } catch (error) {
+    const code = (error as { code?: string }).code;
+    if (code === "PROTOCOL_SEQUENCE_TIMEOUT" || (error as { fatal?: boolean }).fatal) connection.destroy();
+    else connection.release();
+    throw error;
+  }
 }

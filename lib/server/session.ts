@@ -8,7 +8,7 @@ import { cookiesAreSecure, getEnv } from "@/lib/env";
 import { SESSION_TIMEOUTS, evaluateSession, sessionNeedsTouch } from "@/lib/domain/auth";
 import { isRole, type Role } from "@/lib/domain/permissions";
 import { getSequelize } from "./db";
-import { getMysqlPool } from "./mysql-pool";
+import { getMysqlPool, sessionStatement } from "./mysql-pool";
 import { log } from "./log";
 
 /*
@@ -120,7 +120,7 @@ type SessionRow = {
 export async function validateSessionToken(token: string | undefined | null, now = new Date()): Promise<ValidSession | null> {
   if (!token || token.length > 200) return null;
   const sessionId = hashToken(token);
-  const [rows] = await getMysqlPool().query<(SessionRow & RowDataPacket)[]>(
+  const rows = await sessionStatement<(SessionRow & RowDataPacket)[]>(
     `SELECT s.created_at, s.last_seen_at, s.expires_at, u.id AS user_id, u.email, u.name, u.role, u.status, u.unit_system,
             (SELECT GROUP_CONCAT(a.site_id) FROM user_site_access a WHERE a.user_id = u.id) AS site_ids
      FROM user_session s JOIN app_user u ON u.id = s.user_id WHERE s.id = ?`,
@@ -143,7 +143,7 @@ export async function validateSessionToken(token: string | undefined | null, now
     return null;
   }
   if (sessionNeedsTouch(lastSeenAt, now)) {
-    await getMysqlPool().execute("UPDATE user_session SET last_seen_at = ? WHERE id = ?", [now, sessionId]);
+    await sessionStatement("UPDATE user_session SET last_seen_at = ? WHERE id = ?", [now, sessionId]);
   }
   return {
     sessionId,
