@@ -11,11 +11,8 @@ import http from "node:http";
 import os from "node:os";
 import path from "node:path";
 import { gzipSync } from "node:zlib";
-import { hash, verify } from "@node-rs/argon2";
-import mariadb from "mariadb";
 import { load as loadOnly, median, sampleRss, serial, treeCpuMs, treeRssKb } from "./lib/bench-stats.mjs";
 import { ensureDebianPackage, ensureNodeModules, root } from "./lib/setup.mjs";
-import { client, plant } from "./lib/plant.mjs";
 import { freePort, say, startChild, stopChild, waitForHttp } from "./lib/util.mjs";
 
 const args = process.argv.slice(2);
@@ -71,8 +68,15 @@ async function load(op, options) {
   return run;
 }
 
+// npm packages (and the modules that use them) are loaded once ensureNodeModules has installed them: a fresh
+// clone has no node_modules when `npm run bench` starts.
+let hash, verify, mariadb, client, plant;
+
 async function main() {
   await ensureNodeModules();
+  ({ hash, verify } = await import("@node-rs/argon2"));
+  mariadb = (await import("mariadb")).default;
+  ({ client, plant } = await import("./lib/plant.mjs"));
   await ensureDebianPackage({ binary: "mariadbd", pkg: "mariadb-server", why: "the benchmark database" });
   const tmp = mkdtempSync(path.join(os.tmpdir(), "gl-bench-"));
   const stoppers = [];

@@ -9,9 +9,7 @@ import { randomUUID } from "node:crypto";
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
-import { hash } from "@node-rs/argon2";
 import { percentile, treeRssKb } from "./lib/bench-stats.mjs";
-import { client, plant } from "./lib/plant.mjs";
 import { ensureDebianPackage, ensureNodeModules, root } from "./lib/setup.mjs";
 import { startMailFakeProcess } from "./lib/stack.mjs";
 import { freePort, say } from "./lib/util.mjs";
@@ -42,8 +40,13 @@ function random(seed) {
   };
 }
 
+// npm packages (and the modules that use them) are loaded once ensureNodeModules has installed them.
+let hash, client, plant;
+
 async function main() {
   await ensureNodeModules();
+  ({ hash } = await import("@node-rs/argon2"));
+  ({ client, plant } = await import("./lib/plant.mjs"));
   await ensureDebianPackage({ binary: "mariadbd", pkg: "mariadb-server", why: "the soak database" });
   const tmp = mkdtempSync(path.join(os.tmpdir(), "gl-soak-"));
   const stoppers = [];
