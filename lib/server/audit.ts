@@ -2,6 +2,7 @@ import "server-only";
 import { QueryTypes, type Transaction } from "sequelize";
 import { auditHashTemplate, canonicalJson, chainVerifier, type AuditEntry, type ChainCheck } from "@/lib/domain/audit";
 import { sha256Hex } from "./audit-hash";
+import { batchAtomically, type BatchStatement } from "./batch";
 import { getSequelize } from "./db";
 
 export interface AuditEvent {
@@ -26,6 +27,18 @@ export async function appendAudit(
   transaction: Transaction,
   now = new Date(),
 ): Promise<{ seq: number; hash: string }> {
+  const call = auditAppendStatement(event, now);
+  const result = await getSequelize().query(call.sql, { replacements: call.params, type: QueryTypes.RAW, transaction });
+  const appended = firstRow(result);
+  if (!appended) throw new Error("The audit append answered nothing: run the migrations.");
+  return { seq: Number(appended.seq), hash: String(appended.hash) };
+}
+
+/**
+ * The `CALL audit_append(…)` of one entry, for a write path that sends its statements together (`lib/server/batch.ts`);
+ * like `appendAudit`, it belongs last, just before the commit.
+ */
+export function auditAppendStatement(event: AuditEvent, now: Date): BatchStatement {
   const entry = {
     at: now.toISOString(),
     actorId: event.actorId,
@@ -36,8 +49,9 @@ export async function appendAudit(
     payload: event.payload ?? {},
   };
   const template = auditHashTemplate(entry);
-  const result = await getSequelize().query("CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?)", {
-    replacements: [
+  return {
+    sql: "CALL audit_append(?, ?, ?, ?, ?, ?, ?, ?, ?)",
+    params: [
       now,
       entry.actorId,
       entry.siteId,
@@ -48,12 +62,7 @@ export async function appendAudit(
       template.before,
       template.after,
     ],
-    type: QueryTypes.RAW,
-    transaction,
-  });
-  const appended = firstRow(result);
-  if (!appended) throw new Error("The audit append answered nothing: run the migrations.");
-  return { seq: Number(appended.seq), hash: String(appended.hash) };
+  };
 }
 
 /** The first row of a procedure's first result set, whatever shape the driver hands it back in. */
@@ -65,7 +74,8 @@ function firstRow(result: unknown): { seq: unknown; hash: unknown } | undefined 
 
 /** Appends an entry in a transaction of its own (for events that change nothing else, such as a sign-in). */
 export async function recordAudit(event: AuditEvent, now = new Date()): Promise<void> {
-  await getSequelize().transaction((t) => appendAudit(event, t, now));
+  // Begun, appended and committed in one compound statement: one round trip.
+  await batchAtomically([auditAppendStatement(event, now)]);
 }
 
 interface AuditRow {

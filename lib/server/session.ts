@@ -3,11 +3,10 @@ import { createHash, randomBytes } from "node:crypto";
 import { Mysql2Adapter } from "@lucia-auth/adapter-mysql";
 import { Lucia, TimeSpan } from "lucia";
 import type { RowDataPacket } from "mysql2";
-import type { Transaction } from "sequelize";
 import { cookiesAreSecure, getEnv } from "@/lib/env";
 import { SESSION_TIMEOUTS, evaluateSession, sessionNeedsTouch } from "@/lib/domain/auth";
 import { isRole, type Role } from "@/lib/domain/permissions";
-import { getSequelize } from "./db";
+import type { BatchStatement } from "./batch";
 import { getMysqlPool, sessionStatement } from "./mysql-pool";
 import { log } from "./log";
 
@@ -79,24 +78,22 @@ export function sessionCookie() {
 }
 
 /**
- * Starts a new session for a user inside the caller's transaction, so that a sign-in and its audit entry commit
- * together (one commit instead of two), and returns the cookie token. Only the token's hash is stored.
+ * A new session for a user: the cookie token and the INSERT of its row, which the caller sends with the sign-in's
+ * audit entry so that both commit together (`batchAtomically`). Only the token's hash is stored.
  */
-export async function createSession(
+export function newSession(
   userId: string,
-  transaction: Transaction,
   meta: { userAgent?: string | null; now?: Date } = {},
-): Promise<string> {
+): { token: string; statement: BatchStatement } {
   const token = randomBytes(20).toString("base64url");
   const now = meta.now ?? new Date();
-  await getSequelize().query(
-    "INSERT INTO user_session (id, user_id, expires_at, created_at, last_seen_at, user_agent) VALUES (?, ?, ?, ?, ?, ?)",
-    {
-      replacements: [hashToken(token), userId, new Date(now.getTime() + SESSION_LIFETIME_MS), now, now, meta.userAgent?.slice(0, 255) ?? null],
-      transaction,
+  return {
+    token,
+    statement: {
+      sql: "INSERT INTO user_session (id, user_id, expires_at, created_at, last_seen_at, user_agent) VALUES (?, ?, ?, ?, ?, ?)",
+      params: [hashToken(token), userId, new Date(now.getTime() + SESSION_LIFETIME_MS), now, now, meta.userAgent?.slice(0, 255) ?? null],
     },
-  );
-  return token;
+  };
 }
 
 type SessionRow = {

@@ -1,10 +1,11 @@
 import "server-only";
 import { QueryTypes } from "sequelize";
-import { appendAudit, recordAudit } from "./audit";
+import { auditAppendStatement, recordAudit } from "./audit";
+import { batchAtomically } from "./batch";
 import { getSequelize } from "./db";
 import { log } from "./log";
 import { hashPassword, needsRehash, verifyDummy, verifyPassword } from "./passwords";
-import { createSession } from "./session";
+import { newSession } from "./session";
 import { checkThrottle, clearThrottle, recordThrottleFailure, signInThrottleKeys } from "./throttle";
 import type { Role } from "@/lib/domain/permissions";
 
@@ -65,11 +66,12 @@ export async function signIn(input: {
       replacements: [await hashPassword(input.password), now, user.id],
     });
   }
-  const token = await getSequelize().transaction(async (transaction) => {
-    const made = await createSession(user.id, transaction, { userAgent: input.userAgent, now });
-    await appendAudit({ event: "session.signed_in", actorId: user.id, subjectType: "user", subjectId: user.id, payload: { address: input.address } }, transaction, now);
-    return made;
-  });
+  // The session row and its audit entry commit together, begun and committed in one compound statement.
+  const { token, statement } = newSession(user.id, { userAgent: input.userAgent, now });
+  await batchAtomically([
+    statement,
+    auditAppendStatement({ event: "session.signed_in", actorId: user.id, subjectType: "user", subjectId: user.id, payload: { address: input.address } }, now),
+  ]);
   log("info", "sign_in_ok", { userId: user.id, address: input.address });
   return { ok: true, token, user: { id: user.id, email: user.email, name: user.name, role: user.role } };
 }

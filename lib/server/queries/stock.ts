@@ -15,6 +15,7 @@ import { tagCodeFrom } from "@/lib/domain/service";
 import type { IssueLiveInput, ReceiptInput } from "@/lib/validation/stock";
 import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
+import { BatchCheckFailed, batchInTransaction, queryBlock, type BatchStatement } from "../batch";
 import { ConflictError, ValidationError } from "../errors";
 import { idempotent, type StoredAnswer } from "../idempotency";
 import { log } from "../log";
@@ -52,14 +53,27 @@ export async function resolveLocation(
 ): Promise<ResolvedLocation> {
   const all = await userSiteIds(userId, transaction);
   const sites = onlySiteId === undefined ? all : all.filter((s) => s === onlySiteId);
+  const [rows] = await queryBlock([locationStatement(sites, raw, field)], transaction);
+  return locationFromRows(rows as LocationRow[], raw, field);
+}
+
+type LocationRow = { id: number; site_id: number; code: string; site_code: string };
+
+/** The read behind `resolveLocation`, for a caller that sends it with other statements; no sites is refused here. */
+export function locationStatement(sites: number[], raw: string | undefined, field = "location"): BatchStatement {
   if (!sites.length)
     throw new ValidationError({ [field]: ["You have no access to this site; ask an administrator."] });
   const [siteCode, code] = splitLocation(raw);
-  const rows = await getSequelize().query<{ id: number; site_id: number; code: string; site_code: string }>(
-    `SELECT l.id, l.site_id, l.code, s.code AS site_code FROM storage_location l JOIN site s ON s.id = l.site_id
-     WHERE l.site_id IN (:sites) ${code ? "AND l.code = :code" : ""} ${siteCode ? "AND s.code = :siteCode" : ""} ORDER BY l.site_id, l.id ${code ? "" : "LIMIT 1"}`,
-    { replacements: { sites, code: code ?? null, siteCode }, type: QueryTypes.SELECT, transaction },
-  );
+  return {
+    sql: `SELECT l.id, l.site_id, l.code, s.code AS site_code FROM storage_location l JOIN site s ON s.id = l.site_id
+     WHERE l.site_id IN (?) ${code ? "AND l.code = ?" : ""} ${siteCode ? "AND s.code = ?" : ""} ORDER BY l.site_id, l.id ${code ? "" : "LIMIT 1"}`,
+    params: [sites, ...(code ? [code] : []), ...(siteCode ? [siteCode] : [])],
+  };
+}
+
+/** The location `locationStatement` found, or the 400 naming the field. */
+export function locationFromRows(rows: LocationRow[], raw: string | undefined, field = "location"): ResolvedLocation {
+  const [, code] = splitLocation(raw);
   if (!rows.length)
     throw new ValidationError({
       [field]: [
@@ -129,15 +143,15 @@ type DemandRow = {
  * planned service; each is counted at the point's planned quantity (common practice, no source: a purge often
  * takes more).
  */
-async function demandRows(siteId: number, greaseId: number, transaction?: Transaction): Promise<DemandRow[]> {
-  return getSequelize().query<DemandRow>(
-    `SELECT 'point' AS kind, quantity_grams, interval_hours, running_hours_per_day, sealed_for_life, NULL AS remaining
-     FROM lube_point WHERE site_id = :site AND assigned_grease_id = :grease
+function demandStatement(siteId: number, greaseId: number): BatchStatement {
+  return {
+    sql: `SELECT 'point' AS kind, quantity_grams, interval_hours, running_hours_per_day, sealed_for_life, NULL AS remaining
+     FROM lube_point WHERE site_id = ? AND assigned_grease_id = ?
      UNION ALL
      SELECT 'purge', p.quantity_grams, NULL, NULL, NULL, c.services_planned - c.services_done FROM changeover c JOIN lube_point p ON p.id = c.point_id
-     WHERE p.site_id = :site AND c.to_grease_id = :grease AND c.state IN ('planned','in_progress') AND c.services_planned > c.services_done`,
-    { replacements: { site: siteId, grease: greaseId }, type: QueryTypes.SELECT, transaction },
-  );
+     WHERE p.site_id = ? AND c.to_grease_id = ? AND c.state IN ('planned','in_progress') AND c.services_planned > c.services_done`,
+    params: [siteId, greaseId, siteId, greaseId],
+  };
 }
 
 /** The reorder point from the policy row and the demand rows: the lead's fixed value, else lead-time demand plus safety stock. */
@@ -185,14 +199,14 @@ export async function reorderPointGrams(
   now: Date,
   transaction?: Transaction,
 ): Promise<{ grams: number; gramsPerWeek: number }> {
-  const [[policy], rows] = await Promise.all([
-    getSequelize().query<PolicyRow>(
-      "SELECT reorder_point_grams, safety_stock_weeks FROM stock_policy WHERE site_id = ? AND grease_id = ?",
-      { replacements: [siteId, greaseId], type: QueryTypes.SELECT, transaction },
-    ),
-    demandRows(siteId, greaseId, transaction),
-  ]);
-  return reorderPointOf(greaseId, policy, rows, leadTimeDays, now);
+  const [policies, rows] = await queryBlock(
+    [
+      { sql: "SELECT reorder_point_grams, safety_stock_weeks FROM stock_policy WHERE site_id = ? AND grease_id = ?", params: [siteId, greaseId] },
+      demandStatement(siteId, greaseId),
+    ],
+    transaction,
+  );
+  return reorderPointOf(greaseId, (policies as PolicyRow[])[0], rows as DemandRow[], leadTimeDays, now);
 }
 
 /** What the low-stock check needs about a grease at a site, read before or after a movement. */
@@ -204,46 +218,46 @@ export interface LowStockFacts {
   episodeOpen: boolean;
 }
 
+type FactsRow = {
+  net_mass_grams: number;
+  kind: string;
+  name: string;
+  code: string;
+  supplier_email: string | null;
+  lead_time_days: number | null;
+  reorder_point_grams: string | null;
+  safety_stock_weeks: string | null;
+  on_hand_grams: string | null;
+  open_episode_id: number | null;
+};
+
 /**
- * Reads, in two statements, what the low-stock check needs: pack, supplier, policy, grams on hand and whether an
- * episode is open; then the demand. Plain reads: inside a transaction they see its snapshot and its own changes.
+ * The two reads the low-stock check needs: pack, supplier, policy, grams on hand and whether an episode is open; then
+ * the demand. Plain reads: inside a transaction they see its snapshot and its own changes. `lowStockFromRows` turns
+ * their rows into the facts.
  */
-export async function lowStockFacts(
-  siteId: number,
-  greaseId: number,
-  packId: number,
-  now: Date,
-  transaction: Transaction,
-): Promise<LowStockFacts> {
-  const [facts] = await getSequelize().query<{
-    net_mass_grams: number;
-    kind: string;
-    name: string;
-    code: string;
-    supplier_email: string | null;
-    lead_time_days: number | null;
-    reorder_point_grams: string | null;
-    safety_stock_weeks: string | null;
-    on_hand_grams: string | null;
-    open_episode_id: number | null;
-  }>(
-    `SELECT p.net_mass_grams, p.kind, g.name, g.code, s.contact_email AS supplier_email, s.lead_time_days,
+export function lowStockStatements(siteId: number, greaseId: number, packId: number): BatchStatement[] {
+  return [
+    {
+      sql: `SELECT p.net_mass_grams, p.kind, g.name, g.code, s.contact_email AS supplier_email, s.lead_time_days,
             sp.reorder_point_grams, sp.safety_stock_weeks,
             (SELECT SUM(l.on_hand * lp.net_mass_grams) FROM stock_lot l JOIN grease_pack lp ON lp.id = l.pack_id
-             WHERE l.site_id = :site AND l.grease_id = :grease) AS on_hand_grams,
-            (SELECT e.id FROM low_stock_episode e WHERE e.open_key = :openKey) AS open_episode_id
+             WHERE l.site_id = ? AND l.grease_id = ?) AS on_hand_grams,
+            (SELECT e.id FROM low_stock_episode e WHERE e.open_key = ?) AS open_episode_id
      FROM grease_pack p JOIN grease g ON g.id = p.grease_id JOIN supplier s ON s.id = g.supplier_id
-     LEFT JOIN stock_policy sp ON sp.site_id = :site AND sp.grease_id = p.grease_id
-     WHERE p.id = :pack AND p.grease_id = :grease`,
-    {
-      replacements: { site: siteId, grease: greaseId, pack: packId, openKey: `${siteId}:${greaseId}` },
-      type: QueryTypes.SELECT,
-      transaction,
+     LEFT JOIN stock_policy sp ON sp.site_id = ? AND sp.grease_id = p.grease_id
+     WHERE p.id = ? AND p.grease_id = ?`,
+      params: [siteId, greaseId, `${siteId}:${greaseId}`, siteId, packId, greaseId],
     },
-  );
+    demandStatement(siteId, greaseId),
+  ];
+}
+
+export function lowStockFromRows(greaseId: number, factsRows: unknown[], demand: unknown[], now: Date): LowStockFacts {
+  const facts = factsRows[0] as FactsRow | undefined;
   if (!facts) throw new ValidationError({ packId: ["This pack does not belong to this grease."] });
   const leadTimeDays = facts.lead_time_days === null ? 14 : Number(facts.lead_time_days);
-  const rp = reorderPointOf(greaseId, facts, await demandRows(siteId, greaseId, transaction), leadTimeDays, now);
+  const rp = reorderPointOf(greaseId, facts, demand as DemandRow[], leadTimeDays, now);
   return {
     pack: {
       grams: Number(facts.net_mass_grams),
@@ -258,6 +272,18 @@ export async function lowStockFacts(
     onHandGrams: Number(facts.on_hand_grams ?? 0),
     episodeOpen: facts.open_episode_id !== null,
   };
+}
+
+/** Reads the low-stock facts (both statements in one round trip). */
+export async function lowStockFacts(
+  siteId: number,
+  greaseId: number,
+  packId: number,
+  now: Date,
+  transaction: Transaction,
+): Promise<LowStockFacts> {
+  const [facts, demand] = await queryBlock(lowStockStatements(siteId, greaseId, packId), transaction);
+  return lowStockFromRows(greaseId, facts!, demand!, now);
 }
 
 /**
@@ -569,41 +595,31 @@ export async function lotRowsOfLabel(
 /** The engine's rule: a lot is expired from the start (UTC) of its expiry date. */
 const lotExpired = (expiresOn: string | Date | null, now: Date) => isExpiredOn(toDate(expiresOn), now);
 
-/** Takes `quantity` containers out of one lot row with a conditional UPDATE and writes the ledger row. */
-async function takeFromRow(
-  row: LotRow,
-  quantity: number,
-  movement: {
-    kind: "issue" | "scrap" | "transfer_out";
-    userId: string;
-    key: string | null;
-    pointId?: number | null;
-    issuedTo?: string | null;
-    otherLocationId?: number | null;
-    reason?: string | null;
-  },
-  now: Date,
-  transaction: Transaction,
-): Promise<void> {
-  const sequelize = getSequelize();
-  const [, affected] = await sequelize.query(
-    "UPDATE stock_lot SET on_hand = on_hand - ?, updated_at = ? WHERE id = ? AND on_hand >= ?",
+type TakeMovement = {
+  kind: "issue" | "scrap" | "transfer_out";
+  userId: string;
+  key: string | null;
+  pointId?: number | null;
+  issuedTo?: string | null;
+  otherLocationId?: number | null;
+  reason?: string | null;
+};
+
+/**
+ * The two writes that take `quantity` containers out of one lot row: a conditional UPDATE (which must change the row)
+ * and the ledger row. Sent together (`lib/server/batch.ts`); `notEnough` is the 409 when the UPDATE changes nothing.
+ */
+function takeStatements(row: LotRow, quantity: number, movement: TakeMovement, now: Date): BatchStatement[] {
+  return [
     {
-      replacements: [quantity, now, row.id, quantity],
-      type: QueryTypes.UPDATE,
-      transaction,
+      sql: "UPDATE stock_lot SET on_hand = on_hand - ?, updated_at = ? WHERE id = ? AND on_hand >= ?",
+      params: [quantity, now, row.id, quantity],
+      expectChanged: 1,
     },
-  );
-  if (!affected)
-    throw new ConflictError(
-      "insufficient_stock",
-      `Only ${Number(row.on_hand)} container(s) of lot ${row.lot_number} are at ${row.location}.`,
-    );
-  await sequelize.query(
-    `INSERT INTO stock_movement (site_id, lot_id, kind, quantity, reason, point_id, issued_to_user_id, other_location_id, user_id, idempotency_key, created_at)
-     VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
     {
-      replacements: [
+      sql: `INSERT INTO stock_movement (site_id, lot_id, kind, quantity, reason, point_id, issued_to_user_id, other_location_id, user_id, idempotency_key, created_at)
+     VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)`,
+      params: [
         row.site_id,
         row.id,
         movement.kind,
@@ -616,9 +632,30 @@ async function takeFromRow(
         movement.key,
         now,
       ],
-      transaction,
     },
+  ];
+}
+
+const notEnough = (row: LotRow) =>
+  new ConflictError(
+    "insufficient_stock",
+    `Only ${Number(row.on_hand)} container(s) of lot ${row.lot_number} are at ${row.location}.`,
   );
+
+/** Takes `quantity` containers out of one lot row with a conditional UPDATE and writes the ledger row (one round trip). */
+async function takeFromRow(
+  row: LotRow,
+  quantity: number,
+  movement: TakeMovement,
+  now: Date,
+  transaction: Transaction,
+): Promise<void> {
+  try {
+    await batchInTransaction(takeStatements(row, quantity, movement, now), transaction);
+  } catch (error) {
+    if (error instanceof BatchCheckFailed) throw notEnough(row);
+    throw error;
+  }
 }
 
 /** Whether a user may receive containers at a site (a technician or lead with access to it). */
@@ -643,20 +680,28 @@ export async function issueStock(
   key: string | null,
   now = new Date(),
 ): Promise<StoredAnswer> {
-  return idempotent({ userId, key, scope: "stock:issue", body: input }, async (transaction) => {
+  // Three round trips to the database: the START TRANSACTION, the key row and the location read as one compound
+  // statement (`opening`); then the low-stock facts and the locking read of the lots, as one; then the takes, the
+  // stored answer, the audit entry and the COMMIT, as one (see `idempotent` and lib/server/batch.ts).
+  const ownSites = await userSiteIds(userId);
+  const opening = input.location ? [locationStatement(ownSites, input.location)] : [];
+  return idempotent({ userId, key, scope: "stock:issue", body: input, pipelined: true, opening }, async (transaction, claimed, opened) => {
     const sequelize = getSequelize();
-    const location = input.location ? await resolveLocation(userId, input.location, transaction) : null;
-    const sites = location ? [location.siteId] : await userSiteIds(userId, transaction);
+    const location = input.location ? locationFromRows((await opened)[0] as LocationRow[], input.location) : null;
+    const sites = location ? [location.siteId] : ownSites;
     if (!sites.length)
       throw new ValidationError({ location: ["You have no site; ask an administrator for access."] });
-    // With the site known, the low-stock facts are read before any lot is locked (the same snapshot the check would
-    // read after the movement, less the movement itself), so the lots stay locked for fewer statements.
-    const early = location ? await lowStockFacts(location.siteId, input.greaseId, input.packId, now, transaction) : null;
+    // With the site known, the low-stock facts are read beside the locking read of the lots (the same snapshot the
+    // check would read after the movement, less the movement itself).
+    let facts: LowStockFacts | null = null;
+    let early: Promise<LowStockFacts> | null = null;
     let pointId: number | null = null;
     const warnings: string[] = [];
     let picks: { row: LotRow; quantity: number }[];
 
     if (input.lotLabel) {
+      early = location ? lowStockFacts(location.siteId, input.greaseId, input.packId, now, transaction) : null;
+      early?.catch(() => {}); // awaited below unless the lots fail first
       const rows = (await lotRowsOfLabel(input.lotLabel, sites, transaction, true)).filter(
         (r) => !location || Number(r.location_id) === location.id,
       );
@@ -718,16 +763,19 @@ export async function issueStock(
           `Lot ${earlier.lot_number} (label ${earlier.label_code}, at ${earlier.location}) expires sooner, on ${dateOnly(toDate(earlier.expires_on)!)}: take that one first next time.`,
         );
     } else {
-      const lots = await sequelize.query<LotRow>(
-        `SELECT ${LOT_COLUMNS} FROM stock_lot l JOIN storage_location sl ON sl.id = l.location_id
-         WHERE l.site_id IN (:sites) AND l.grease_id = :grease AND l.pack_id = :pack ${location ? "AND l.location_id = :location" : ""} AND l.on_hand > 0
+      const lotsRead: BatchStatement = {
+        sql: `SELECT ${LOT_COLUMNS} FROM stock_lot l JOIN storage_location sl ON sl.id = l.location_id
+         WHERE l.site_id IN (?) AND l.grease_id = ? AND l.pack_id = ? ${location ? "AND l.location_id = ?" : ""} AND l.on_hand > 0
          ORDER BY l.expires_on IS NULL, l.expires_on, l.received_on, l.id FOR UPDATE`,
-        {
-          replacements: { sites, grease: input.greaseId, pack: input.packId, location: location?.id ?? null },
-          type: QueryTypes.SELECT,
-          transaction,
-        },
+        params: [sites, input.greaseId, input.packId, ...(location ? [location.id] : [])],
+      };
+      // One round trip: the facts (when the site is known) and the locking read of the lots.
+      const sets = await queryBlock(
+        [...(location ? lowStockStatements(location.siteId, input.greaseId, input.packId) : []), lotsRead],
+        transaction,
       );
+      if (location) facts = lowStockFromRows(input.greaseId, sets[0]!, sets[1]!, now);
+      const lots = sets[sets.length - 1] as LotRow[];
       const siteId = location?.siteId ?? (lots[0] ? Number(lots[0].site_id) : sites[0]!);
       const candidates = lots.filter((l) => Number(l.site_id) === siteId);
       // pickLots is unit-agnostic: here it counts containers of one pack, not grams.
@@ -753,6 +801,11 @@ export async function issueStock(
     }
 
     const siteId = Number(picks[0]!.row.site_id);
+    // Without a location the site is known only now. Either way the facts do not count this issue yet: its takes
+    // are sent last, with the stored answer (WorkAnswer.writes), so the quantity is taken off below.
+    facts ??= await (early ?? lowStockFacts(siteId, input.greaseId, input.packId, now, transaction));
+    // Nothing is written before the key row is known to be ours.
+    await claimed;
     if (input.issuedToUserId) await assertRecipient(input.issuedToUserId, siteId, transaction);
     if (input.pointTag) {
       const [point] = await sequelize.query<{ id: number }>(
@@ -764,26 +817,20 @@ export async function issueStock(
         throw new ValidationError({ pointTag: [`No lube point with tag ${input.pointTag} at the site these containers are at.`] });
       pointId = Number(point.id);
     }
-    for (const pick of picks) {
-      await takeFromRow(
-        pick.row,
-        pick.quantity,
-        { kind: "issue", userId, key, pointId, issuedTo: input.issuedToUserId ?? null },
-        now,
-        transaction,
-      );
-    }
-    if (early)
-      await settleLowStock(
-        { ...early, onHandGrams: early.onHandGrams - input.quantity * early.pack.grams },
-        siteId,
-        input.greaseId,
-        input.packId,
-        userId,
-        now,
-        transaction,
-      );
-    else await checkLowStock(siteId, input.greaseId, input.packId, userId, now, transaction);
+    // The takes go out with the stored answer and the audit entry (WorkAnswer.writes): under the locks taken above
+    // each conditional UPDATE changes its row, and if one did not the whole issue is refused with a 409.
+    const writes = picks.flatMap((pick) =>
+      takeStatements(pick.row, pick.quantity, { kind: "issue", userId, key, pointId, issuedTo: input.issuedToUserId ?? null }, now),
+    );
+    await settleLowStock(
+      { ...facts, onHandGrams: facts.onHandGrams - input.quantity * facts.pack.grams },
+      siteId,
+      input.greaseId,
+      input.packId,
+      userId,
+      now,
+      transaction,
+    );
     log("info", "stock_issued", {
       greaseId: input.greaseId,
       quantity: input.quantity,
@@ -810,6 +857,8 @@ export async function issueStock(
     };
     return {
       audit,
+      writes,
+      onCheckFailed: (index) => notEnough(picks[Math.floor(index / 2)]!.row),
       status: 201,
       body: {
         issued: picks.map((p) => ({
