@@ -15,10 +15,11 @@ import {
 } from "@/lib/domain/compatibility";
 import type { EvaluateInput, EvidenceInput, GreaseRef } from "@/lib/validation/compatibility";
 import { appendAudit } from "../audit";
-import { boundModels, getSequelize } from "../db";
+import { queryBlock, type BatchStatement } from "../batch";
+import { getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
-import { getGrease, greaseProfiles, listGreases, type GreaseDto } from "./greases";
+import { getGrease, greaseProfilesStatement, listGreases, profilesFromRows, type GreaseDto } from "./greases";
 import { userSiteIds } from "./users";
 
 export interface SiteCompatibilitySettings extends CompatibilitySettings, MixtureTestSettings {
@@ -31,20 +32,48 @@ export async function getSiteSettings(
   siteId: number,
   transaction?: Transaction,
 ): Promise<SiteCompatibilitySettings> {
-  const { CompatibilitySettingsRow } = boundModels();
-  const row = await CompatibilitySettingsRow.findByPk(siteId, { transaction });
-  if (!row)
-    return { siteId, version: 0, ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
+  const [rows] = await queryBlock([siteSettingsStatement(siteId)], transaction);
+  return siteSettingsFromRows(siteId, rows!);
+}
+
+type SettingsRow = {
+  version: number;
+  enabled_charts: string;
+  viscosity_ratio_limit: string | number;
+  nlgi_step_limit: string | number;
+  dropping_point_allowance_c: string | number;
+  worked_penetration_allowance: string | number;
+  storage_change_allowance: string | number;
+};
+
+function siteSettingsStatement(siteId: number): BatchStatement {
+  return {
+    sql: `SELECT version, enabled_charts, viscosity_ratio_limit, nlgi_step_limit, dropping_point_allowance_c,
+            worked_penetration_allowance, storage_change_allowance FROM compatibility_settings WHERE site_id = ?`,
+    params: [siteId],
+  };
+}
+
+function siteSettingsFromRows(siteId: number, rows: unknown[]): SiteCompatibilitySettings {
+  const row = rows[0] as SettingsRow | undefined;
+  if (!row) return { siteId, version: 0, ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
   return {
     siteId,
-    version: row.version,
-    enabledCharts: row.enabledCharts.split(",").filter(Boolean),
-    viscosityRatioLimit: Number(row.viscosityRatioLimit),
-    nlgiStepLimit: Number(row.nlgiStepLimit),
-    droppingPointAllowanceC: Number(row.droppingPointAllowanceC),
-    workedPenetrationAllowance: Number(row.workedPenetrationAllowance),
-    storagePenetrationChangeAllowance: Number(row.storageChangeAllowance),
+    version: Number(row.version),
+    enabledCharts: row.enabled_charts.split(",").filter(Boolean),
+    viscosityRatioLimit: Number(row.viscosity_ratio_limit),
+    nlgiStepLimit: Number(row.nlgi_step_limit),
+    droppingPointAllowanceC: Number(row.dropping_point_allowance_c),
+    workedPenetrationAllowance: Number(row.worked_penetration_allowance),
+    storagePenetrationChangeAllowance: Number(row.storage_change_allowance),
   };
+}
+
+/** The site whose settings apply for a user: the requested one if they may see it, else their first, else none. */
+async function settingsSiteFor(userId: string, siteId?: number): Promise<number | undefined> {
+  const sites = await userSiteIds(userId);
+  if (siteId !== undefined && !sites.includes(siteId)) throw new NotFoundError("No such site among yours.");
+  return siteId ?? [...sites].sort((a, b) => a - b)[0];
 }
 
 /** The settings that apply for a user: the requested site if they may see it, else their first site, else defaults. */
@@ -52,9 +81,7 @@ export async function settingsForUser(
   userId: string,
   siteId?: number,
 ): Promise<SiteCompatibilitySettings | (CompatibilitySettings & MixtureTestSettings)> {
-  const sites = await userSiteIds(userId);
-  if (siteId !== undefined && !sites.includes(siteId)) throw new NotFoundError("No such site among yours.");
-  const chosen = siteId ?? sites.sort((a, b) => a - b)[0];
+  const chosen = await settingsSiteFor(userId, siteId);
   if (chosen === undefined) return { ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
   return getSiteSettings(chosen);
 }
@@ -197,26 +224,30 @@ export async function listEvidence(
   filter: { id?: number; greaseId?: number; pair?: [number, number] } = {},
   transaction?: Transaction,
 ): Promise<EvidenceDto[]> {
+  const [rows] = await queryBlock([evidenceStatement(filter)], transaction);
+  return (rows as EvidenceRow[]).map(evidenceDto);
+}
+
+function evidenceStatement(filter: { id?: number; greaseId?: number; pair?: [number, number] }): BatchStatement {
   const where: string[] = [];
-  const replacements: number[] = [];
+  const params: number[] = [];
   if (filter.id) {
     where.push("e.id = ?");
-    replacements.push(filter.id);
+    params.push(filter.id);
   } else if (filter.pair) {
     where.push("e.grease_low_id = ? AND e.grease_high_id = ?");
-    replacements.push(Math.min(...filter.pair), Math.max(...filter.pair));
+    params.push(Math.min(...filter.pair), Math.max(...filter.pair));
   } else if (filter.greaseId) {
     where.push("(e.grease_low_id = ? OR e.grease_high_id = ?)");
-    replacements.push(filter.greaseId, filter.greaseId);
+    params.push(filter.greaseId, filter.greaseId);
   }
-  const rows = await getSequelize().query<EvidenceRow>(
-    `SELECT e.*, d.original_name, gl.name AS low_name, gh.name AS high_name FROM grease_pair_evidence e
+  return {
+    sql: `SELECT e.*, d.original_name, gl.name AS low_name, gh.name AS high_name FROM grease_pair_evidence e
      JOIN grease gl ON gl.id = e.grease_low_id JOIN grease gh ON gh.id = e.grease_high_id
      LEFT JOIN stored_document d ON d.id = e.document_id
      ${where.length ? `WHERE ${where.join(" AND ")}` : ""} ORDER BY e.recorded_at DESC, e.id DESC`,
-    { replacements, type: QueryTypes.SELECT, transaction },
-  );
-  return rows.map(evidenceDto);
+    params,
+  };
 }
 
 export function profileOf(grease: GreaseDto): GreaseProfile {
@@ -236,11 +267,20 @@ export function profileOf(grease: GreaseDto): GreaseProfile {
 export async function evaluatePair(input: EvaluateInput, userId: string): Promise<MixResult> {
   const ids = [input.a, input.b].flatMap((ref) => ("greaseId" in ref ? [ref.greaseId] : []));
   const pair = ids.length === 2 && ids[0] !== ids[1] ? ([ids[0], ids[1]] as [number, number]) : null;
-  const [profiles, settings, evidence] = await Promise.all([
-    greaseProfiles(ids),
-    settingsForUser(userId, input.siteId),
-    pair ? listEvidence({ pair }) : Promise.resolve([]),
-  ]);
+  // The profiles, the site's settings and the pair's evidence: one compound statement, one round trip.
+  const site = await settingsSiteFor(userId, input.siteId);
+  const reads: BatchStatement[] = [];
+  const at = (statement: BatchStatement | null) => (statement ? reads.push(statement) - 1 : -1);
+  const [profilesAt, settingsAt, evidenceAt] = [
+    at(ids.length ? greaseProfilesStatement(ids) : null),
+    at(site !== undefined ? siteSettingsStatement(site) : null),
+    at(pair ? evidenceStatement({ pair }) : null),
+  ];
+  const sets = reads.length ? await queryBlock(reads) : [];
+  const profiles = profilesAt >= 0 ? profilesFromRows(sets[profilesAt]!) : new Map<number, GreaseProfile>();
+  const settings =
+    site !== undefined ? siteSettingsFromRows(site, sets[settingsAt]!) : { ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
+  const evidence = evidenceAt >= 0 ? (sets[evidenceAt] as EvidenceRow[]).map(evidenceDto) : [];
   const resolve = (ref: GreaseRef, field: string): GreaseProfile => {
     if (!("greaseId" in ref)) return { ...ref.profile, productId: null, name: undefined };
     const profile = profiles.get(ref.greaseId);

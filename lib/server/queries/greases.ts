@@ -1,5 +1,5 @@
 import "server-only";
-import { Op, QueryTypes, type Transaction } from "sequelize";
+import { Op, type Transaction } from "sequelize";
 import type { GreaseProfile } from "@/lib/domain/compatibility";
 import type {
   BaseOilType,
@@ -13,6 +13,7 @@ import type { Grease, GreaseDocument, GreasePack, StoredDocument } from "@/model
 import { greaseSchema, type GreaseInput, type GreasePatch } from "@/lib/validation/grease";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
 import { appendAudit } from "../audit";
+import { queryBlock, type BatchStatement } from "../batch";
 import { boundModels, getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
@@ -121,24 +122,28 @@ export async function getGrease(id: number, transaction?: Transaction): Promise<
   return toDto(grease, grease.supplier?.name ?? "", packs);
 }
 
-/** The compatibility profiles of some greases, by id, in one statement (the engine needs nothing else). */
-export async function greaseProfiles(ids: number[]): Promise<Map<number, GreaseProfile>> {
-  if (!ids.length) return new Map();
-  const rows = await getSequelize().query<{
-    id: number;
-    name: string;
-    thickener: Thickener;
-    base_oil_type: BaseOilType;
-    viscosity_40: string | number;
-    nlgi_grade: NlgiGrade;
-    food_grade: FoodGrade;
-    solid_additives: string;
-  }>(
-    "SELECT id, name, thickener, base_oil_type, viscosity_40, nlgi_grade, food_grade, solid_additives FROM grease WHERE id IN (?)",
-    { replacements: [[...new Set(ids)]], type: QueryTypes.SELECT },
-  );
+type ProfileRow = {
+  id: number;
+  name: string;
+  thickener: Thickener;
+  base_oil_type: BaseOilType;
+  viscosity_40: string | number;
+  nlgi_grade: NlgiGrade;
+  food_grade: FoodGrade;
+  solid_additives: string;
+};
+
+/** The read behind `greaseProfiles`, for a caller that sends it with other statements (ids must not be empty). */
+export function greaseProfilesStatement(ids: number[]): BatchStatement {
+  return {
+    sql: "SELECT id, name, thickener, base_oil_type, viscosity_40, nlgi_grade, food_grade, solid_additives FROM grease WHERE id IN (?)",
+    params: [[...new Set(ids)]],
+  };
+}
+
+export function profilesFromRows(rows: unknown[]): Map<number, GreaseProfile> {
   return new Map(
-    rows.map((g) => [
+    (rows as ProfileRow[]).map((g) => [
       Number(g.id),
       {
         productId: Number(g.id),
@@ -152,6 +157,13 @@ export async function greaseProfiles(ids: number[]): Promise<Map<number, GreaseP
       },
     ]),
   );
+}
+
+/** The compatibility profiles of some greases, by id, in one statement (the engine needs nothing else). */
+export async function greaseProfiles(ids: number[]): Promise<Map<number, GreaseProfile>> {
+  if (!ids.length) return new Map();
+  const [rows] = await queryBlock([greaseProfilesStatement(ids)]);
+  return profilesFromRows(rows!);
 }
 
 export async function requireGrease(id: number): Promise<GreaseDto> {
