@@ -9,7 +9,11 @@ const day = (label: string) =>
     z
       .string({ error: `${label} must be a date (YYYY-MM-DD).` })
       .regex(/^\d{4}-\d{2}-\d{2}$/, `${label} must be a date (YYYY-MM-DD).`)
-      .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), `${label} is not a real date.`)
+      // A day that does not exist (30 February) is refused, not rolled into the next month.
+      .refine((s) => {
+        const ms = Date.parse(`${s}T00:00:00Z`);
+        return !Number.isNaN(ms) && new Date(ms).toISOString().slice(0, 10) === s;
+      }, `${label} is not a real date.`)
       .optional(),
   );
 
