@@ -2,8 +2,10 @@ import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Client } from "./helpers";
 import {
+  createTestGrease,
   finalOutcome,
   pool,
+  receiveTestLot,
   startPrivateStack,
   writeUntilAnswered,
   type AppProcess,
@@ -28,30 +30,18 @@ const countBy = (values: unknown[]) =>
   values.reduce<Record<string, number>>((counts, v) => ({ ...counts, [String(v)]: (counts[String(v)] ?? 0) + 1 }), {});
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-async function newGrease(lead: Client, name: string) {
-  const created = await lead.request("POST", "/api/v1/greases", {
-    json: {
-      code: `FLT-${randomUUID().slice(0, 8)}`,
-      name,
-      supplier: "Fault Test Oils",
-      thickener: "lithium_complex",
-      baseOilType: "mineral",
-      viscosity40: 150,
-      nlgiGrade: "2",
-      packs: [{ kind: "cartridge", netMassGrams: 400 }],
-    },
+const newGrease = (lead: Client, name: string) =>
+  createTestGrease(lead, {
+    code: `FLT-${randomUUID().slice(0, 8)}`,
+    name,
+    supplier: "Fault Test Oils",
+    thickener: "lithium_complex",
+    baseOilType: "mineral",
+    viscosity40: 150,
   });
-  expect(created.status, JSON.stringify(created.body)).toBe(201);
-  return { greaseId: created.body.id as number, packId: created.body.packs[0].id as number };
-}
 
-async function receive(grease: { greaseId: number; packId: number }, quantity: number) {
-  const answer = await clerk.request("POST", "/api/v1/stock/receipts", {
-    json: { ...grease, quantity, lotNumber: `F-${randomUUID().slice(0, 8)}`, expiresOn: "2030-06-30", location: "STORE" },
-  });
-  expect(answer.status, JSON.stringify(answer.body)).toBe(201);
-  return answer.body.lot.labelCode as string;
-}
+const receive = (grease: { greaseId: number; packId: number }, quantity: number) =>
+  receiveTestLot(clerk, grease, { quantity, lotNumber: `F-${randomUUID().slice(0, 8)}`, expiresOn: "2030-06-30", location: "STORE" });
 
 beforeAll(async () => {
   stack = await startPrivateStack("faults");

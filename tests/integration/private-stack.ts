@@ -6,7 +6,8 @@ import { mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import mariadb from "mariadb";
-import { freePort, ROOT } from "./helpers";
+import { expect } from "vitest";
+import { freePort, ROOT, type Client } from "./helpers";
 // @ts-expect-error plain ES module without types
 import { startMariadb } from "../../scripts/lib/mariadb.mjs";
 // @ts-expect-error plain ES module without types
@@ -272,3 +273,26 @@ export async function writeUntilAnswered(target: () => string, cookies: Map<stri
 }
 
 export const finalOutcome = (write: KeyedWrite) => write.attempts.at(-1);
+
+/** A catalogue grease of its own for a test (one 400 g cartridge pack), created through the API by a lead. */
+export async function createTestGrease(
+  lead: Client,
+  grease: { code: string; name: string; supplier: string; thickener: string; baseOilType: string; viscosity40: number },
+): Promise<{ greaseId: number; packId: number }> {
+  const created = await lead.request("POST", "/api/v1/greases", {
+    json: { ...grease, nlgiGrade: "2", packs: [{ kind: "cartridge", netMassGrams: 400 }] },
+  });
+  expect(created.status, JSON.stringify(created.body)).toBe(201);
+  return { greaseId: created.body.id as number, packId: created.body.packs[0].id as number };
+}
+
+/** Receives one lot of a grease through the API; answers the lot's label. */
+export async function receiveTestLot(
+  who: Client,
+  grease: { greaseId: number; packId: number },
+  lot: { quantity: number; lotNumber: string; expiresOn: string; location: string },
+): Promise<string> {
+  const answer = await who.request("POST", "/api/v1/stock/receipts", { json: { ...grease, ...lot } });
+  expect(answer.status, JSON.stringify(answer.body)).toBe(201);
+  return answer.body.lot.labelCode as string;
+}

@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Client } from "./helpers";
-import { startPrivateStack, type AppProcess, type PrivateStack } from "./private-stack";
+import { createTestGrease, receiveTestLot, startPrivateStack, type AppProcess, type PrivateStack } from "./private-stack";
 
 // Two `next start` processes of one build against one database, configured alike as they would be behind a
 // balancer (reliability.md §D): nothing that matters may live in one process's memory.
@@ -35,25 +35,16 @@ afterAll(async () => {
 }, 60_000);
 
 async function grease(lead: BalancedClient, onHand: number) {
-  const created = await lead.request("POST", "/api/v1/greases", {
-    json: {
-      code: `TWO-${randomUUID().slice(0, 8)}`,
-      name: `Two-instance grease ${randomUUID().slice(0, 6)}`,
-      supplier: "Balancer Oils",
-      thickener: "polyurea",
-      baseOilType: "pao",
-      viscosity40: 100,
-      nlgiGrade: "2",
-      packs: [{ kind: "cartridge", netMassGrams: 400 }],
-    },
+  const ids = await createTestGrease(lead, {
+    code: `TWO-${randomUUID().slice(0, 8)}`,
+    name: `Two-instance grease ${randomUUID().slice(0, 6)}`,
+    supplier: "Balancer Oils",
+    thickener: "polyurea",
+    baseOilType: "pao",
+    viscosity40: 100,
   });
-  expect(created.status, JSON.stringify(created.body)).toBe(201);
-  const ids = { greaseId: created.body.id as number, packId: created.body.packs[0].id as number };
-  const receipt = await lead.request("POST", "/api/v1/stock/receipts", {
-    json: { ...ids, quantity: onHand, lotNumber: `T-${randomUUID().slice(0, 8)}`, expiresOn: "2030-01-31", location: "KBC/STORE" },
-  });
-  expect(receipt.status, JSON.stringify(receipt.body)).toBe(201);
-  return { ...ids, label: receipt.body.lot.labelCode as string };
+  const label = await receiveTestLot(lead, ids, { quantity: onHand, lotNumber: `T-${randomUUID().slice(0, 8)}`, expiresOn: "2030-01-31", location: "KBC/STORE" });
+  return { ...ids, label };
 }
 
 describe("two app instances on one database (reliability.md §D)", () => {
