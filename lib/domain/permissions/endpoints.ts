@@ -38,6 +38,7 @@ export const ROUTE_POLICY: Readonly<Record<string, EndpointRule>> = {
   "POST /api/v1/greases/[id]/documents": "catalogue.write",
   "GET /api/v1/greases/[id]/documents/[kind]": "catalogue.read",
   "GET /api/v1/incidents": "incidents.read",
+  "GET /api/v1/openapi.json": "public", // the API's own description (generated from the request schemas); no data
   "GET /api/v1/incidents/export": "incidents.export",
   "GET /api/v1/points": "points.read",
   "GET /api/v1/points/[tag]": "points.read",
