@@ -158,6 +158,14 @@ async function sweep(from: Site, to: Site) {
       answers.push({ what: `${method} ${path}`, status: r.status, text: r.text, ok, why: what });
     });
 
+  /** A list filtered to the other site: exactly 403 site_forbidden. */
+  const forbidden = (what: string, path: string) =>
+    jobs.push(async () => {
+      const r = await client.request("GET", path);
+      const ok = r.status === 403 && (r.body as { error?: { code?: string } } | null)?.error?.code === "site_forbidden";
+      answers.push({ what: `GET ${path}`, status: r.status, text: r.text, ok, why: what });
+    });
+
   /** A page: 404, or (streamed) 200 with the not-found page; the leak check covers the rest of the HTML. */
   const page = (path: string) =>
     jobs.push(async () => {
@@ -245,13 +253,14 @@ async function sweep(from: Site, to: Site) {
   for (const a of spread(o.assets)) {
     action("new point on the asset", "app/(app)/points/plant-actions.ts#savePointAction", [null, prev, pointForm(a.id, own.grease_id)], ["assetId"]);
   }
-  route("points of the site", "GET", `/api/v1/points?site=${to.id}`, undefined, { fields: ["site"], emptyList: true });
-  route("incidents of the site", "GET", `/api/v1/incidents?site=${to.code}`, undefined, { fields: ["site"], emptyList: true });
+  // Another site in a list's filter is a 403 (API.md), not an empty list.
+  forbidden("points of the site", `/api/v1/points?site=${to.id}`);
+  forbidden("incidents of the site", `/api/v1/incidents?site=${to.code}`);
   route("service export of the site", "GET", `/api/v1/services/export?format=csv&site=${to.id}`, undefined, { fields: ["site"] });
   jobs.push(async () => {
     // The incident export of another site: refused, or an empty file (the filter only narrows the caller's sites).
     const r = await client.request("GET", `/api/v1/incidents/export?format=csv&site=${to.code}`);
-    const ok = r.status === 403 || r.status === 404 || (r.status === 200 && r.headers.get("x-total-rows") === "0");
+    const ok = r.status === 403 && (r.body as { error?: { code?: string } } | null)?.error?.code === "site_forbidden";
     answers.push({ what: `GET incidents/export?site=${to.code}`, status: r.status, text: r.text, ok, why: "incident export of the site" });
   });
   action("reorder settings of the site", "app/(app)/stock/actions.ts#stockPolicyAction", [prev, form({ siteId: to.id, greaseId, reorderPointKg: 1 })], ["siteId"]);

@@ -3,7 +3,7 @@ import { QueryTypes, type Transaction } from "sequelize";
 import type { IncidentFilter, IncidentMove, IncidentNote, IncidentReport } from "@/lib/validation/incidents";
 import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
-import { ConflictError, NotFoundError, ValidationError } from "../errors";
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
 import { checkGreaseForPoint, getPointByTag } from "./points";
 import { userSiteIds } from "./users";
@@ -112,6 +112,19 @@ function whereOf(filter: IncidentFilter, sites: number[]) {
       state: filter.state ?? null,
     },
   };
+}
+
+/**
+ * For the API: a `site` filter must name one of the caller's sites. Another site's code (or one that does not exist)
+ * is a 403 naming it, as API.md has it, rather than an empty list that looks like "no incidents there".
+ */
+export async function assertOwnSiteCode(userId: string, siteCode: string | undefined): Promise<void> {
+  if (!siteCode) return;
+  const [sites, [row]] = await Promise.all([
+    userSiteIds(userId),
+    getSequelize().query<{ id: number }>("SELECT id FROM site WHERE code = ?", { replacements: [siteCode], type: QueryTypes.SELECT }),
+  ]);
+  if (!row || !sites.includes(Number(row.id))) throw new ForbiddenError(`You have no access to site ${siteCode}.`, "site_forbidden");
 }
 
 /** Incidents of the caller's sites, newest first, filtered by period (opened, days inclusive), site, area, kind and state. */

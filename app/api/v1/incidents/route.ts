@@ -1,7 +1,7 @@
 import { jsonResponse } from "@/lib/server/json-response";
 import { apiRoute } from "@/lib/server/api";
 import { ValidationError } from "@/lib/server/errors";
-import { listIncidents } from "@/lib/server/queries/incidents";
+import { assertOwnSiteCode, listIncidents } from "@/lib/server/queries/incidents";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
 import { incidentFilterSchema } from "@/lib/validation/incidents";
 
@@ -11,5 +11,6 @@ export const dynamic = "force-dynamic";
 export const GET = apiRoute({ action: "incidents.read" }, async ({ request, user }) => {
   const parsed = incidentFilterSchema.safeParse(Object.fromEntries(request.nextUrl.searchParams));
   if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
+  await assertOwnSiteCode(user.id, parsed.data.site);
   return jsonResponse({ items: await listIncidents(user.id, parsed.data) });
 });

@@ -1,7 +1,7 @@
 import { apiRoute } from "@/lib/server/api";
 import { ValidationError } from "@/lib/server/errors";
 import { beginIncidentExport, incidentCsvStream, incidentPdfStream } from "@/lib/server/incident-export";
-import { userSiteNames } from "@/lib/server/queries/incidents";
+import { assertOwnSiteCode, userSiteNames } from "@/lib/server/queries/incidents";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
 import { incidentExportSchema } from "@/lib/validation/incidents";
 
@@ -16,6 +16,7 @@ export const GET = apiRoute({ action: "incidents.export" }, async ({ request, us
   const parsed = incidentExportSchema.safeParse(Object.fromEntries(request.nextUrl.searchParams));
   if (!parsed.success) throw new ValidationError(zodFieldErrors(parsed.error));
   const { format, ...filter } = parsed.data;
+  await assertOwnSiteCode(user.id, filter.site);
   const now = new Date();
   const { counts, head } = await beginIncidentExport(user.id, format, filter, now);
   const day = now.toISOString().slice(0, 10);
