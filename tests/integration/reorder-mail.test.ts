@@ -92,6 +92,27 @@ describe("reorder mail through the outbox (reliability.md §B.3)", () => {
     expect(await pending()).toHaveLength(2);
   });
 
+  it("22 issues at once across the reorder point open one episode with one mail, and never close it on a stale count", async () => {
+    const { getSequelize } = await import("@/lib/server/db");
+    const sequelize = getSequelize();
+    // Whatever the test before left: lots emptied, episodes ended, mail counted from here.
+    await sequelize.query("UPDATE stock_lot SET on_hand = 0");
+    await sequelize.query("UPDATE low_stock_episode SET ended_at = NOW(3), open_key = NULL WHERE open_key IS NOT NULL");
+    const before = (await pending()).length;
+    const [{ n: episodesBefore }] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM low_stock_episode", { type: QueryTypes.SELECT }) as [{ n: number }];
+    await stock.receiveStock({ greaseId, packId, quantity: 25, lotNumber: `R-${randomUUID().slice(0, 6)}`, location: "STORE" }, userId, null);
+    // 25 × 400 g = 10 kg; the point is 2 kg (5 cartridges): the last few issues fall below it.
+    const answers = await Promise.allSettled(
+      Array.from({ length: 22 }, () => stock.issueStock({ greaseId, packId, quantity: 1, location: "STORE" }, userId, randomUUID())),
+    );
+    expect(answers.filter((a) => a.status === "rejected").map((a) => String((a as PromiseRejectedResult).reason))).toEqual([]);
+    const [{ n: episodes }] = await sequelize.query<{ n: number }>("SELECT COUNT(*) AS n FROM low_stock_episode", { type: QueryTypes.SELECT }) as [{ n: number }];
+    const [{ open }] = await sequelize.query<{ open: number }>("SELECT COUNT(*) AS open FROM low_stock_episode WHERE open_key IS NOT NULL", { type: QueryTypes.SELECT }) as [{ open: number }];
+    expect(Number(episodes) - Number(episodesBefore)).toBe(1);
+    expect(Number(open)).toBe(1);
+    expect((await pending()).length - before).toBe(1);
+  });
+
   it("a rolled-back issue (not enough stock) leaves no outbox row and no movement", async () => {
     const before = (await pending()).length;
     await expect(stock.issueStock({ greaseId, packId, quantity: 500 }, userId, null)).rejects.toMatchObject({ code: "insufficient_stock" });

@@ -59,14 +59,17 @@ export async function resolveLocation(
 
 type LocationRow = { id: number; site_id: number; code: string; site_code: string };
 
-/** The read behind `resolveLocation`, for a caller that sends it with other statements; no sites is refused here. */
-export function locationStatement(sites: number[], raw: string | undefined, field = "location"): BatchStatement {
+/**
+ * The read behind `resolveLocation`, for a caller that sends it with other statements; no sites is refused here.
+ * `shared` reads it with a shared lock, which (unlike a plain read) takes no snapshot for the transaction.
+ */
+export function locationStatement(sites: number[], raw: string | undefined, field = "location", shared = false): BatchStatement {
   if (!sites.length)
     throw new ValidationError({ [field]: ["You have no access to this site; ask an administrator."] });
   const [siteCode, code] = splitLocation(raw);
   return {
     sql: `SELECT l.id, l.site_id, l.code, s.code AS site_code FROM storage_location l JOIN site s ON s.id = l.site_id
-     WHERE l.site_id IN (?) ${code ? "AND l.code = ?" : ""} ${siteCode ? "AND s.code = ?" : ""} ORDER BY l.site_id, l.id ${code ? "" : "LIMIT 1"}`,
+     WHERE l.site_id IN (?) ${code ? "AND l.code = ?" : ""} ${siteCode ? "AND s.code = ?" : ""} ORDER BY l.site_id, l.id ${code ? "" : "LIMIT 1"} ${shared ? "LOCK IN SHARE MODE" : ""}`,
     params: [sites, ...(code ? [code] : []), ...(siteCode ? [siteCode] : [])],
   };
 }
@@ -574,10 +577,14 @@ interface LotRow {
   received_on: string | Date;
 }
 
-const LOT_COLUMNS =
-  "l.id, l.site_id, l.grease_id, l.pack_id, l.location_id, sl.code AS location, l.lot_number, l.label_code, l.on_hand, l.expires_on, l.received_on";
+const LOT_ONLY_COLUMNS =
+  "l.id, l.site_id, l.grease_id, l.pack_id, l.location_id, l.lot_number, l.label_code, l.on_hand, l.expires_on, l.received_on";
 
-/** The rows of one label (one row per location holding it) on the given sites, locked when asked, by id. */
+/**
+ * The rows of one label (one row per location holding it) on the given sites, locked when asked, by id. Only the lot
+ * rows are locked: the location codes come from a second, plain read in the same round trip (a locking read joined
+ * to storage_location would lock the location's row too, and every issue from that store would wait on it).
+ */
 export async function lotRowsOfLabel(
   labelCode: string,
   sites: number[],
@@ -585,11 +592,21 @@ export async function lotRowsOfLabel(
   lock = false,
 ): Promise<LotRow[]> {
   if (!sites.length) return [];
-  return getSequelize().query<LotRow>(
-    `SELECT ${LOT_COLUMNS} FROM stock_lot l JOIN storage_location sl ON sl.id = l.location_id
-     WHERE l.label_code = :code AND l.site_id IN (:sites) ORDER BY l.id ${lock ? "FOR UPDATE" : ""}`,
-    { replacements: { code: labelCode, sites }, type: QueryTypes.SELECT, transaction },
+  const [lots, places] = await queryBlock(
+    [
+      {
+        sql: `SELECT ${LOT_ONLY_COLUMNS} FROM stock_lot l WHERE l.label_code = ? AND l.site_id IN (?) ORDER BY l.id ${lock ? "FOR UPDATE" : ""}`,
+        params: [labelCode, sites],
+      },
+      {
+        sql: "SELECT sl.id, sl.code FROM storage_location sl WHERE sl.id IN (SELECT l.location_id FROM stock_lot l WHERE l.label_code = ? AND l.site_id IN (?))",
+        params: [labelCode, sites],
+      },
+    ],
+    transaction,
   );
+  const codes = new Map((places as { id: number; code: string }[]).map((r) => [Number(r.id), r.code]));
+  return (lots as Omit<LotRow, "location">[]).map((l) => ({ ...l, location: codes.get(Number(l.location_id)) ?? "" }));
 }
 
 /** The engine's rule: a lot is expired from the start (UTC) of its expiry date. */
@@ -684,7 +701,8 @@ export async function issueStock(
   // statement (`opening`); then the low-stock facts and the locking read of the lots, as one; then the takes, the
   // stored answer, the audit entry and the COMMIT, as one (see `idempotent` and lib/server/batch.ts).
   const ownSites = await userSiteIds(userId);
-  const opening = input.location ? [locationStatement(ownSites, input.location)] : [];
+  // Shared-locked, so that the transaction's snapshot is taken only after the lots are locked (see below).
+  const opening = input.location ? [locationStatement(ownSites, input.location, "location", true)] : [];
   return idempotent({ userId, key, scope: "stock:issue", body: input, pipelined: true, opening }, async (transaction, claimed, opened) => {
     const sequelize = getSequelize();
     const location = input.location ? locationFromRows((await opened)[0] as LocationRow[], input.location) : null;
@@ -763,19 +781,31 @@ export async function issueStock(
           `Lot ${earlier.lot_number} (label ${earlier.label_code}, at ${earlier.location}) expires sooner, on ${dateOnly(toDate(earlier.expires_on)!)}: take that one first next time.`,
         );
     } else {
+      // The lots alone are locked: joined to storage_location in the locking read, InnoDB locked the location's row
+      // too, so every issue from one store waited for the one before it, whatever the grease.
       const lotsRead: BatchStatement = {
-        sql: `SELECT ${LOT_COLUMNS} FROM stock_lot l JOIN storage_location sl ON sl.id = l.location_id
+        sql: `SELECT ${LOT_ONLY_COLUMNS} FROM stock_lot l
          WHERE l.site_id IN (?) AND l.grease_id = ? AND l.pack_id = ? ${location ? "AND l.location_id = ?" : ""} AND l.on_hand > 0
          ORDER BY l.expires_on IS NULL, l.expires_on, l.received_on, l.id FOR UPDATE`,
         params: [sites, input.greaseId, input.packId, ...(location ? [location.id] : [])],
       };
-      // One round trip: the facts (when the site is known) and the locking read of the lots.
+      // One round trip. The locking read goes first: the block's first plain read (the facts) then takes the
+      // transaction's snapshot after the lots are ours, so the on-hand it sums includes every issue of these lots
+      // that committed before (the location was read with a shared lock, which takes no snapshot).
       const sets = await queryBlock(
-        [...(location ? lowStockStatements(location.siteId, input.greaseId, input.packId) : []), lotsRead],
+        [
+          lotsRead,
+          ...(location
+            ? lowStockStatements(location.siteId, input.greaseId, input.packId)
+            : [{ sql: "SELECT id, code FROM storage_location WHERE site_id IN (?)", params: [sites] }]),
+        ],
         transaction,
       );
-      if (location) facts = lowStockFromRows(input.greaseId, sets[0]!, sets[1]!, now);
-      const lots = sets[sets.length - 1] as LotRow[];
+      const codes = location
+        ? new Map([[location.id, location.code]])
+        : new Map((sets[1] as { id: number; code: string }[]).map((r) => [Number(r.id), r.code]));
+      if (location) facts = lowStockFromRows(input.greaseId, sets[1]!, sets[2]!, now);
+      const lots = (sets[0] as Omit<LotRow, "location">[]).map((l) => ({ ...l, location: codes.get(Number(l.location_id)) ?? "" }));
       const siteId = location?.siteId ?? (lots[0] ? Number(lots[0].site_id) : sites[0]!);
       const candidates = lots.filter((l) => Number(l.site_id) === siteId);
       // pickLots is unit-agnostic: here it counts containers of one pack, not grams.
