@@ -3,9 +3,10 @@ import { QueryTypes, Transaction } from "sequelize";
 import { getSequelize } from "./db";
 
 /**
- * Several write statements sent to MariaDB as ONE compound statement (`BEGIN NOT ATOMIC … END`), so a write path
- * pays one network round trip for all of them instead of one each. On this kind of machine a round trip costs more
- * than the statement itself (a socket write and a wake-up on both sides), which is what held the stock issue back.
+ * Several statements sent to MariaDB as ONE compound statement (`BEGIN NOT ATOMIC … END`), so a request pays one
+ * network round trip for all of them instead of one each; the rows of the SELECTs among them come back in order. On
+ * this kind of machine a round trip costs more than a simple statement (a socket write and a wake-up on both sides),
+ * which is what held the stock issue back.
  *
  * The statements run in order and the first failure stops the rest; a statement may require that it changed
  * exactly `expectChanged` rows, otherwise the block stops with `BatchCheckFailed` naming it. Values go in as `?`
