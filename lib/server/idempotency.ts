@@ -94,14 +94,12 @@ export async function idempotent(
           });
         // Last, so the audit chain head (one lock for every audited write) is held only until the commit.
         if (answer.audit) finals.push(auditAppendStatement(answer.audit.event, answer.audit.at));
-        {
-          try {
-            // The last writes, the stored answer, the audit entry and the COMMIT: one round trip.
-            await commitWith(finals);
-          } catch (error) {
-            if (error instanceof BatchCheckFailed && answer.onCheckFailed) throw answer.onCheckFailed(error.index);
-            throw error;
-          }
+        try {
+          // The last writes, the stored answer, the audit entry and the COMMIT: one round trip.
+          await commitWith(finals);
+        } catch (error) {
+          if (error instanceof BatchCheckFailed && answer.onCheckFailed) throw answer.onCheckFailed(error.index);
+          throw error;
         }
         return { status: answer.status, body: answer.body };
       });

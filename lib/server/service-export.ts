@@ -4,10 +4,9 @@ import { csvField, csvRecord, neutraliseCell } from "@/lib/csv";
 import type { ServiceExportQuery } from "@/lib/validation/service-export";
 import { appendAudit } from "./audit";
 import { getSequelize, statementCounter } from "./db";
-import { ForbiddenError } from "./errors";
 import { log } from "./log";
 import { getBulkReadPool } from "./mariadb-pool";
-import { userSiteIds } from "./queries/users";
+import { assertOwnSite } from "./queries/users";
 
 /** Service ids per page (so at most this many rows per statement): the per-statement cost disappears, memory stays flat. */
 export const SERVICE_EXPORT_PAGE_SIZE = 5000;
@@ -41,9 +40,7 @@ export async function serviceExportScope(
   userId: string,
   query: ServiceExportQuery,
 ): Promise<ServiceExportScope> {
-  const own = await userSiteIds(userId);
-  if (query.siteId !== undefined && !own.includes(query.siteId))
-    throw new ForbiddenError(`You have no access to site ${query.siteId}.`, "site_forbidden");
+  const own = await assertOwnSite(userId, query.siteId);
   const siteIds = (query.siteId !== undefined ? [query.siteId] : own).sort((a, b) => a - b);
   const start = `${query.from} 00:00:00`;
   const end = `${dayAfter(query.to)} 00:00:00`;

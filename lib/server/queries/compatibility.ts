@@ -36,6 +36,12 @@ export async function getSiteSettings(
   return siteSettingsFromRows(siteId, rows!);
 }
 
+/** The engine's settings when a site has none of its own (or the user has no site). */
+const defaultSettings = (): CompatibilitySettings & MixtureTestSettings => ({
+  ...DEFAULT_COMPATIBILITY_SETTINGS,
+  ...DEFAULT_MIXTURE_TEST_SETTINGS,
+});
+
 type SettingsRow = {
   version: number;
   enabled_charts: string;
@@ -56,7 +62,7 @@ function siteSettingsStatement(siteId: number): BatchStatement {
 
 function siteSettingsFromRows(siteId: number, rows: unknown[]): SiteCompatibilitySettings {
   const row = rows[0] as SettingsRow | undefined;
-  if (!row) return { siteId, version: 0, ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
+  if (!row) return { siteId, version: 0, ...defaultSettings() };
   return {
     siteId,
     version: Number(row.version),
@@ -82,7 +88,7 @@ export async function settingsForUser(
   siteId?: number,
 ): Promise<SiteCompatibilitySettings | (CompatibilitySettings & MixtureTestSettings)> {
   const chosen = await settingsSiteFor(userId, siteId);
-  if (chosen === undefined) return { ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
+  if (chosen === undefined) return defaultSettings();
   return getSiteSettings(chosen);
 }
 
@@ -279,7 +285,7 @@ export async function evaluatePair(input: EvaluateInput, userId: string): Promis
   const sets = reads.length ? await queryBlock(reads) : [];
   const profiles = profilesAt >= 0 ? profilesFromRows(sets[profilesAt]!) : new Map<number, GreaseProfile>();
   const settings =
-    site !== undefined ? siteSettingsFromRows(site, sets[settingsAt]!) : { ...DEFAULT_COMPATIBILITY_SETTINGS, ...DEFAULT_MIXTURE_TEST_SETTINGS };
+    site !== undefined ? siteSettingsFromRows(site, sets[settingsAt]!) : defaultSettings();
   const evidence = evidenceAt >= 0 ? (sets[evidenceAt] as EvidenceRow[]).map(evidenceDto) : [];
   const resolve = (ref: GreaseRef, field: string): GreaseProfile => {
     if (!("greaseId" in ref)) return { ...ref.profile, productId: null, name: undefined };

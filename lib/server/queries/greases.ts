@@ -13,7 +13,7 @@ import type { Grease, GreaseDocument, GreasePack, StoredDocument } from "@/model
 import { greaseSchema, type GreaseInput, type GreasePatch } from "@/lib/validation/grease";
 import { zodFieldErrors } from "@/lib/validation/field-errors";
 import { appendAudit } from "../audit";
-import { queryBlock, type BatchStatement } from "../batch";
+import type { BatchStatement } from "../batch";
 import { boundModels, getSequelize } from "../db";
 import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
@@ -133,7 +133,8 @@ type ProfileRow = {
   solid_additives: string;
 };
 
-/** The read behind `greaseProfiles`, for a caller that sends it with other statements (ids must not be empty). */
+/** The compatibility profiles of some greases, by id (the engine needs nothing else), as a statement for a caller that
+ * sends it with others (ids must not be empty); `profilesFromRows` reads its rows. */
 export function greaseProfilesStatement(ids: number[]): BatchStatement {
   return {
     sql: "SELECT id, name, thickener, base_oil_type, viscosity_40, nlgi_grade, food_grade, solid_additives FROM grease WHERE id IN (?)",
@@ -157,13 +158,6 @@ export function profilesFromRows(rows: unknown[]): Map<number, GreaseProfile> {
       },
     ]),
   );
-}
-
-/** The compatibility profiles of some greases, by id, in one statement (the engine needs nothing else). */
-export async function greaseProfiles(ids: number[]): Promise<Map<number, GreaseProfile>> {
-  if (!ids.length) return new Map();
-  const [rows] = await queryBlock([greaseProfilesStatement(ids)]);
-  return profilesFromRows(rows!);
 }
 
 export async function requireGrease(id: number): Promise<GreaseDto> {

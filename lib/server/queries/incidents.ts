@@ -3,10 +3,10 @@ import { QueryTypes, type Transaction } from "sequelize";
 import type { IncidentFilter, IncidentMove, IncidentNote, IncidentReport } from "@/lib/validation/incidents";
 import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
-import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from "../errors";
+import { ConflictError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
 import { checkGreaseForPoint, getPointByTag } from "./points";
-import { userSiteIds } from "./users";
+import { assertOwnSite, userSiteIds } from "./users";
 
 export type IncidentKind = "refused_mix" | "changeover_exception" | "found_after_fact";
 export type IncidentState = "open" | "investigating" | "closed";
@@ -115,16 +115,14 @@ function whereOf(filter: IncidentFilter, sites: number[]) {
 }
 
 /**
- * For the API: a `site` filter must name one of the caller's sites. Another site's code (or one that does not exist)
- * is a 403 naming it, as API.md has it, rather than an empty list that looks like "no incidents there".
+ * For the API: a `site` filter (a site code) must name one of the caller's sites (`assertOwnSite`); a code that names
+ * no site is a 403 too.
  */
 export async function assertOwnSiteCode(userId: string, siteCode: string | undefined): Promise<void> {
   if (!siteCode) return;
-  const [sites, [row]] = await Promise.all([
-    userSiteIds(userId),
-    getSequelize().query<{ id: number }>("SELECT id FROM site WHERE code = ?", { replacements: [siteCode], type: QueryTypes.SELECT }),
-  ]);
-  if (!row || !sites.includes(Number(row.id))) throw new ForbiddenError(`You have no access to site ${siteCode}.`, "site_forbidden");
+  const [row] = await getSequelize().query<{ id: number }>("SELECT id FROM site WHERE code = ?", { replacements: [siteCode], type: QueryTypes.SELECT });
+  // A code that names no site is refused the same way as another site's.
+  await assertOwnSite(userId, row ? Number(row.id) : -1, siteCode);
 }
 
 /** Incidents of the caller's sites, newest first, filtered by period (opened, days inclusive), site, area, kind and state. */

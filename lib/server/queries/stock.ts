@@ -709,17 +709,13 @@ export async function issueStock(
     const sites = location ? [location.siteId] : ownSites;
     if (!sites.length)
       throw new ValidationError({ location: ["You have no site; ask an administrator for access."] });
-    // With the site known, the low-stock facts are read beside the locking read of the lots (the same snapshot the
-    // check would read after the movement, less the movement itself).
+    // The low-stock facts, read after the lots are locked (see the picking path below and the read after it).
     let facts: LowStockFacts | null = null;
-    let early: Promise<LowStockFacts> | null = null;
     let pointId: number | null = null;
     const warnings: string[] = [];
     let picks: { row: LotRow; quantity: number }[];
 
     if (input.lotLabel) {
-      early = location ? lowStockFacts(location.siteId, input.greaseId, input.packId, now, transaction) : null;
-      early?.catch(() => {}); // awaited below unless the lots fail first
       const rows = (await lotRowsOfLabel(input.lotLabel, sites, transaction, true)).filter(
         (r) => !location || Number(r.location_id) === location.id,
       );
@@ -831,9 +827,10 @@ export async function issueStock(
     }
 
     const siteId = Number(picks[0]!.row.site_id);
-    // Without a location the site is known only now. Either way the facts do not count this issue yet: its takes
-    // are sent last, with the stored answer (WorkAnswer.writes), so the quantity is taken off below.
-    facts ??= await (early ?? lowStockFacts(siteId, input.greaseId, input.packId, now, transaction));
+    // Read after the lots are locked (a scanned label, or no location: the picking path above read them with the
+    // lock when it could). The facts do not count this issue yet: its takes are sent last, with the stored answer
+    // (WorkAnswer.writes), so the quantity is taken off below.
+    facts ??= await lowStockFacts(siteId, input.greaseId, input.packId, now, transaction);
     // Nothing is written before the key row is known to be ours.
     await claimed;
     if (input.issuedToUserId) await assertRecipient(input.issuedToUserId, siteId, transaction);
@@ -888,6 +885,7 @@ export async function issueStock(
     return {
       audit,
       writes,
+      // `writes` holds takeStatements' two statements per pick, in pick order.
       onCheckFailed: (index) => notEnough(picks[Math.floor(index / 2)]!.row),
       status: 201,
       body: {

@@ -5,7 +5,7 @@ import { getEnv } from "@/lib/env";
 import { ROLE_LABELS, type Role } from "@/lib/domain/permissions";
 import { appendAudit } from "../audit";
 import { getSequelize } from "../db";
-import { ConflictError, NotFoundError, ValidationError } from "../errors";
+import { ConflictError, ForbiddenError, NotFoundError, ValidationError } from "../errors";
 import { log } from "../log";
 import { enqueueMail } from "../mail/outbox";
 import { hashPassword } from "../passwords";
@@ -70,6 +70,16 @@ export async function listUsers(): Promise<UserListItem[]> {
 }
 
 /** The site ids a user may see. Inside a transaction pass it, so the query does not wait for a second pool connection. */
+/**
+ * For an API filter or export that names a site: it must be one of the caller's, else a 403 `site_forbidden` naming
+ * it (API.md), rather than an empty answer that looks like "nothing there". Answers the caller's site ids.
+ */
+export async function assertOwnSite(userId: string, siteId: number | undefined, shownAs: string | number | undefined = siteId): Promise<number[]> {
+  const own = await userSiteIds(userId);
+  if (siteId !== undefined && !own.includes(siteId)) throw new ForbiddenError(`You have no access to site ${shownAs}.`, "site_forbidden");
+  return own;
+}
+
 export async function userSiteIds(userId: string, transaction?: Transaction): Promise<number[]> {
   const known = knownSiteIds(userId);
   if (known) return known;
