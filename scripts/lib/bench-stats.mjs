@@ -94,16 +94,36 @@ export function treeRssKb(pid) {
   return processTree(pid).reduce((kb, [, rss]) => kb + rss, 0);
 }
 
-/** Samples `treeRssKb(pid)` every `everyMs` until stopped: `stop()` gives the peak in kB. */
+/** Resident memory (kB) of the given processes, read from /proc (a process that ended counts 0). */
+function rssKbOf(pids, pageKb) {
+  let kb = 0;
+  for (const p of pids) {
+    try {
+      kb += Number(readFileSync(`/proc/${p}/statm`, "utf8").split(" ")[1]) * pageKb;
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return kb;
+}
+
+/**
+ * Samples the resident memory of a process and its descendants every `everyMs` until stopped: `stop()` gives the
+ * peak in kB. The process tree is listed once, when sampling starts, and each sample reads /proc directly: running
+ * `ps` for every sample took about 25 ms of this process's time, synchronously, so the client stopped reading what
+ * it measured for half of every 50 ms.
+ */
 export function sampleRss(pid, everyMs = 50) {
-  let peak = treeRssKb(pid);
+  const pids = processTree(pid).map(([p]) => p);
+  const pageKb = Number(execFileSync("getconf", ["PAGESIZE"], { encoding: "utf8" }).trim()) / 1024;
+  let peak = rssKbOf(pids, pageKb);
   const timer = setInterval(() => {
-    peak = Math.max(peak, treeRssKb(pid));
+    peak = Math.max(peak, rssKbOf(pids, pageKb));
   }, everyMs);
   return {
     stop() {
       clearInterval(timer);
-      return Math.max(peak, treeRssKb(pid));
+      return Math.max(peak, rssKbOf(pids, pageKb));
     },
   };
 }
