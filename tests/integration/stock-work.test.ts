@@ -151,6 +151,38 @@ describe("issuing", () => {
     expect(answer.body.error.fields.lotLabel[0]).toMatch(/expired/);
     expect(await labelOnHand(old.labelCode)).toBe(6);
   });
+
+  it("an issue naming its store reads store, lots and stock in one go, yet refuses a wrong store or pack by field and keeps nothing", async () => {
+    const lot = await receive({ location: "KBC/STORE" });
+    const key = randomUUID();
+    const issue = (client: Client, json: Record<string, unknown>) =>
+      client.request("POST", "/api/v1/stock/issues", {
+        json: { greaseId, packId, quantity: 1, ...json },
+        headers: { "idempotency-key": key },
+      });
+    const unknown = await issue(clerk, { location: "KBC/NOWHERE" });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.fields.location[0]).toMatch(/No storage location KBC\/NOWHERE/);
+    // The lead has both sites, and both have a STORE: the bare code is refused, not guessed.
+    const ambiguous = await issue(lead, { location: "STORE" });
+    expect(ambiguous.status).toBe(400);
+    expect(ambiguous.body.error.fields.location[0]).toMatch(/several of your sites/);
+    const otherGrease = greases.find((g) => g.id !== greaseId && g.packs.length)!;
+    const wrongPack = await issue(clerk, { packId: otherGrease.packs[0]!.id, location: "KBC/STORE" });
+    expect(wrongPack.status).toBe(400);
+    expect(wrongPack.body.error.fields.packId).toBeDefined();
+    expect(await labelOnHand(lot.labelCode)).toBe(6);
+    // Nothing was kept under the key: the same key then issues, once.
+    const done = await issue(clerk, { location: "KBC/STORE" });
+    expect(done.status, JSON.stringify(done.body)).toBe(201);
+    expect(done.body.issued).toEqual([expect.objectContaining({ quantity: 1, location: "STORE" })]);
+    expect((await issue(clerk, { location: "KBC/STORE" })).status).toBe(201);
+    const total = await rootQuery<{ n: string }>(
+      "SELECT COALESCE(SUM(m.quantity), 0) AS n FROM stock_movement m JOIN stock_lot l ON l.id = m.lot_id WHERE l.grease_id = ? AND m.kind = 'issue' AND m.idempotency_key = ?",
+      [greaseId, key],
+    );
+    expect(Number(total[0]!.n)).toBe(-1);
+  });
 });
 
 describe("returns, transfers, scrap and counts keep the ledger equal to the stock", () => {

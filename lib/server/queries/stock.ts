@@ -63,15 +63,36 @@ type LocationRow = { id: number; site_id: number; code: string; site_code: strin
  * The read behind `resolveLocation`, for a caller that sends it with other statements; no sites is refused here.
  * `shared` reads it with a shared lock, which (unlike a plain read) takes no snapshot for the transaction.
  */
-export function locationStatement(sites: number[], raw: string | undefined, field = "location", shared = false): BatchStatement {
+export function locationStatement(
+  sites: number[],
+  raw: string | undefined,
+  field = "location",
+  shared = false,
+  intoVariables = false,
+): BatchStatement {
   if (!sites.length)
     throw new ValidationError({ [field]: ["You have no access to this site; ask an administrator."] });
   const [siteCode, code] = splitLocation(raw);
+  const columns = intoVariables
+    ? `l.id, l.site_id INTO ${ISSUE_LOCATION}, ${ISSUE_SITE}`
+    : "l.id, l.site_id, l.code, s.code AS site_code";
   return {
-    sql: `SELECT l.id, l.site_id, l.code, s.code AS site_code FROM storage_location l JOIN site s ON s.id = l.site_id
-     WHERE l.site_id IN (?) ${code ? "AND l.code = ?" : ""} ${siteCode ? "AND s.code = ?" : ""} ORDER BY l.site_id, l.id ${code ? "" : "LIMIT 1"} ${shared ? "LOCK IN SHARE MODE" : ""}`,
+    sql: `SELECT ${columns} FROM storage_location l JOIN site s ON s.id = l.site_id
+     WHERE l.site_id IN (?) ${code ? "AND l.code = ?" : ""} ${siteCode ? "AND s.code = ?" : ""} ORDER BY l.site_id, l.id ${code && !intoVariables ? "" : "LIMIT 1"} ${shared ? "LOCK IN SHARE MODE" : ""}`,
     params: [sites, ...(code ? [code] : []), ...(siteCode ? [siteCode] : [])],
   };
+}
+
+/**
+ * The same read with a shared lock, its first row kept in `@issue_location` and `@issue_site` for the statements
+ * that follow it in one compound statement (both are cleared first: user variables outlive the statement on a
+ * pooled connection). No row leaves them NULL, which matches nothing.
+ */
+function locationIntoVariables(sites: number[], raw: string | undefined): BatchStatement[] {
+  return [
+    { sql: `SET ${ISSUE_LOCATION} = NULL, ${ISSUE_SITE} = NULL`, params: [] },
+    locationStatement(sites, raw, "location", true, true),
+  ];
 }
 
 /** The location `locationStatement` found, or the 400 naming the field. */
@@ -146,14 +167,25 @@ type DemandRow = {
  * planned service; each is counted at the point's planned quantity (common practice, no source: a purge often
  * takes more).
  */
-function demandStatement(siteId: number, greaseId: number): BatchStatement {
+/**
+ * A site in a statement: its id (sent as a value), or the user variable an earlier statement of the same compound
+ * statement set (see `issueOpening`), so that statements which depend on a site read in the same round trip can go
+ * with it.
+ */
+export type SiteRef = number | typeof ISSUE_SITE;
+const ISSUE_SITE = "@issue_site" as const;
+const ISSUE_LOCATION = "@issue_location" as const;
+const siteSql = (site: SiteRef): [sql: string, params: unknown[]] => (site === ISSUE_SITE ? [ISSUE_SITE, []] : ["?", [site]]);
+
+function demandStatement(site: SiteRef, greaseId: number): BatchStatement {
+  const [siteAt, siteParams] = siteSql(site);
   return {
     sql: `SELECT 'point' AS kind, quantity_grams, interval_hours, running_hours_per_day, sealed_for_life, NULL AS remaining
-     FROM lube_point WHERE site_id = ? AND assigned_grease_id = ?
+     FROM lube_point WHERE site_id = ${siteAt} AND assigned_grease_id = ?
      UNION ALL
      SELECT 'purge', p.quantity_grams, NULL, NULL, NULL, c.services_planned - c.services_done FROM changeover c JOIN lube_point p ON p.id = c.point_id
-     WHERE p.site_id = ? AND c.to_grease_id = ? AND c.state IN ('planned','in_progress') AND c.services_planned > c.services_done`,
-    params: [siteId, greaseId, siteId, greaseId],
+     WHERE p.site_id = ${siteAt} AND c.to_grease_id = ? AND c.state IN ('planned','in_progress') AND c.services_planned > c.services_done`,
+    params: [...siteParams, greaseId, ...siteParams, greaseId],
   };
 }
 
@@ -239,20 +271,21 @@ type FactsRow = {
  * the demand. Plain reads: inside a transaction they see its snapshot and its own changes. `lowStockFromRows` turns
  * their rows into the facts.
  */
-export function lowStockStatements(siteId: number, greaseId: number, packId: number): BatchStatement[] {
+export function lowStockStatements(site: SiteRef, greaseId: number, packId: number): BatchStatement[] {
+  const [siteAt, siteParams] = siteSql(site);
   return [
     {
       sql: `SELECT p.net_mass_grams, p.kind, g.name, g.code, s.contact_email AS supplier_email, s.lead_time_days,
             sp.reorder_point_grams, sp.safety_stock_weeks,
             (SELECT SUM(l.on_hand * lp.net_mass_grams) FROM stock_lot l JOIN grease_pack lp ON lp.id = l.pack_id
-             WHERE l.site_id = ? AND l.grease_id = ?) AS on_hand_grams,
-            (SELECT e.id FROM low_stock_episode e WHERE e.open_key = ?) AS open_episode_id
+             WHERE l.site_id = ${siteAt} AND l.grease_id = ?) AS on_hand_grams,
+            (SELECT e.id FROM low_stock_episode e WHERE e.open_key = CONCAT(${siteAt}, ':', ?)) AS open_episode_id
      FROM grease_pack p JOIN grease g ON g.id = p.grease_id JOIN supplier s ON s.id = g.supplier_id
-     LEFT JOIN stock_policy sp ON sp.site_id = ? AND sp.grease_id = p.grease_id
+     LEFT JOIN stock_policy sp ON sp.site_id = ${siteAt} AND sp.grease_id = p.grease_id
      WHERE p.id = ? AND p.grease_id = ?`,
-      params: [siteId, greaseId, `${siteId}:${greaseId}`, siteId, packId, greaseId],
+      params: [...siteParams, greaseId, ...siteParams, greaseId, ...siteParams, packId, greaseId],
     },
-    demandStatement(siteId, greaseId),
+    demandStatement(site, greaseId),
   ];
 }
 
@@ -581,6 +614,27 @@ const LOT_ONLY_COLUMNS =
   "l.id, l.site_id, l.grease_id, l.pack_id, l.location_id, l.lot_number, l.label_code, l.on_hand, l.expires_on, l.received_on";
 
 /**
+ * The picking path's locking read: the lots of a grease and pack with containers on hand, at one location or
+ * anywhere on the sites, in the order they are to be used. The lots alone are locked: joined to storage_location,
+ * InnoDB locked the location's row too, so every issue from one store waited for the one before it, whatever the
+ * grease. Site and location are values, or the user variables of `locationIntoVariables`.
+ */
+function lotsForUpdate(
+  sites: number[] | typeof ISSUE_SITE,
+  location: typeof ISSUE_LOCATION | null,
+  greaseId: number,
+  packId: number,
+): BatchStatement {
+  const variables = sites === ISSUE_SITE;
+  return {
+    sql: `SELECT ${LOT_ONLY_COLUMNS} FROM stock_lot l
+         WHERE ${variables ? `l.site_id = ${ISSUE_SITE}` : "l.site_id IN (?)"} AND l.grease_id = ? AND l.pack_id = ? ${location ? `AND l.location_id = ${location}` : ""} AND l.on_hand > 0
+         ORDER BY l.expires_on IS NULL, l.expires_on, l.received_on, l.id FOR UPDATE`,
+    params: [...(variables ? [] : [sites]), greaseId, packId],
+  };
+}
+
+/**
  * The rows of one label (one row per location holding it) on the given sites, locked when asked, by id. Only the lot
  * rows are locked: the location codes come from a second, plain read in the same round trip (a locking read joined
  * to storage_location would lock the location's row too, and every issue from that store would wait on it).
@@ -697,15 +751,31 @@ export async function issueStock(
   key: string | null,
   now = new Date(),
 ): Promise<StoredAnswer> {
-  // Three round trips to the database: the START TRANSACTION, the key row and the location read as one compound
-  // statement (`opening`); then the low-stock facts and the locking read of the lots, as one; then the takes, the
-  // stored answer, the audit entry and the COMMIT, as one (see `idempotent` and lib/server/batch.ts).
+  // Two round trips to the database when the store is named and the lots are picked (the usual issue): the START
+  // TRANSACTION, the key row, the location read, the locking read of its lots and the low-stock facts as one
+  // compound statement (`opening`); then the takes, the stored answer, the audit entry and the COMMIT, as one (see
+  // `idempotent` and lib/server/batch.ts). A scanned label or no store named takes one round trip more.
   const ownSites = await userSiteIds(userId);
+  const picksAtLocation = Boolean(input.location) && !input.lotLabel;
   // Shared-locked, so that the transaction's snapshot is taken only after the lots are locked (see below).
-  const opening = input.location ? [locationStatement(ownSites, input.location, "location", true)] : [];
+  const opening = input.location
+    ? [
+        locationStatement(ownSites, input.location, "location", true),
+        // The picking path's reads, at the location the read above found (kept in user variables): the lots with
+        // their lock first, so the block's first plain read (the facts) takes the snapshot after they are ours.
+        ...(picksAtLocation
+          ? [
+              ...locationIntoVariables(ownSites, input.location),
+              lotsForUpdate(ISSUE_SITE, ISSUE_LOCATION, input.greaseId, input.packId),
+              ...lowStockStatements(ISSUE_SITE, input.greaseId, input.packId),
+            ]
+          : []),
+      ]
+    : [];
   return idempotent({ userId, key, scope: "stock:issue", body: input, pipelined: true, opening }, async (transaction, claimed, opened) => {
     const sequelize = getSequelize();
-    const location = input.location ? locationFromRows((await opened)[0] as LocationRow[], input.location) : null;
+    const openedSets = input.location ? await opened : [];
+    const location = input.location ? locationFromRows(openedSets[0] as LocationRow[], input.location) : null;
     const sites = location ? [location.siteId] : ownSites;
     if (!sites.length)
       throw new ValidationError({ location: ["You have no site; ask an administrator for access."] });
@@ -777,26 +847,19 @@ export async function issueStock(
           `Lot ${earlier.lot_number} (label ${earlier.label_code}, at ${earlier.location}) expires sooner, on ${dateOnly(toDate(earlier.expires_on)!)}: take that one first next time.`,
         );
     } else {
-      // The lots alone are locked: joined to storage_location in the locking read, InnoDB locked the location's row
-      // too, so every issue from one store waited for the one before it, whatever the grease.
-      const lotsRead: BatchStatement = {
-        sql: `SELECT ${LOT_ONLY_COLUMNS} FROM stock_lot l
-         WHERE l.site_id IN (?) AND l.grease_id = ? AND l.pack_id = ? ${location ? "AND l.location_id = ?" : ""} AND l.on_hand > 0
-         ORDER BY l.expires_on IS NULL, l.expires_on, l.received_on, l.id FOR UPDATE`,
-        params: [sites, input.greaseId, input.packId, ...(location ? [location.id] : [])],
-      };
-      // One round trip. The locking read goes first: the block's first plain read (the facts) then takes the
-      // transaction's snapshot after the lots are ours, so the on-hand it sums includes every issue of these lots
-      // that committed before (the location was read with a shared lock, which takes no snapshot).
-      const sets = await queryBlock(
-        [
-          lotsRead,
-          ...(location
-            ? lowStockStatements(location.siteId, input.greaseId, input.packId)
-            : [{ sql: "SELECT id, code FROM storage_location WHERE site_id IN (?)", params: [sites] }]),
-        ],
-        transaction,
-      );
+      // At a location, the lots and the facts came with the opening. Otherwise one round trip here: the locking
+      // read goes first, so the block's first plain read takes the transaction's snapshot after the lots are ours
+      // and the on-hand the facts sum includes every issue of these lots that committed before (the location was
+      // read with a shared lock, which takes no snapshot).
+      const sets = location
+        ? openedSets.slice(1)
+        : await queryBlock(
+            [
+              lotsForUpdate(sites, null, input.greaseId, input.packId),
+              { sql: "SELECT id, code FROM storage_location WHERE site_id IN (?)", params: [sites] },
+            ],
+            transaction,
+          );
       const codes = location
         ? new Map([[location.id, location.code]])
         : new Map((sets[1] as { id: number; code: string }[]).map((r) => [Number(r.id), r.code]));
