@@ -162,14 +162,8 @@ type DemandRow = {
 };
 
 /**
- * What drives a grease's demand at a site, in one statement: the lube points it is assigned to, and the purges still
- * to come of changeovers to it. A changeover under way purges the new grease through its point at each remaining
- * planned service; each is counted at the point's planned quantity (common practice, no source: a purge often
- * takes more).
- */
-/**
  * A site in a statement: its id (sent as a value), or the user variable an earlier statement of the same compound
- * statement set (see `issueOpening`), so that statements which depend on a site read in the same round trip can go
+ * statement set (`locationIntoVariables`), so that statements which depend on a site read in the same round trip can go
  * with it.
  */
 export type SiteRef = number | typeof ISSUE_SITE;
@@ -177,6 +171,12 @@ const ISSUE_SITE = "@issue_site" as const;
 const ISSUE_LOCATION = "@issue_location" as const;
 const siteSql = (site: SiteRef): [sql: string, params: unknown[]] => (site === ISSUE_SITE ? [ISSUE_SITE, []] : ["?", [site]]);
 
+/**
+ * What drives a grease's demand at a site, in one statement: the lube points it is assigned to, and the purges still
+ * to come of changeovers to it. A changeover under way purges the new grease through its point at each remaining
+ * planned service; each is counted at the point's planned quantity (common practice, no source: a purge often
+ * takes more).
+ */
 function demandStatement(site: SiteRef, greaseId: number): BatchStatement {
   const [siteAt, siteParams] = siteSql(site);
   return {
@@ -847,10 +847,11 @@ export async function issueStock(
           `Lot ${earlier.lot_number} (label ${earlier.label_code}, at ${earlier.location}) expires sooner, on ${dateOnly(toDate(earlier.expires_on)!)}: take that one first next time.`,
         );
     } else {
-      // At a location, the lots and the facts came with the opening. Otherwise one round trip here: the locking
-      // read goes first, so the block's first plain read takes the transaction's snapshot after the lots are ours
-      // and the on-hand the facts sum includes every issue of these lots that committed before (the location was
-      // read with a shared lock, which takes no snapshot).
+      // At a location, the lots and the facts came with the opening: the locking read went first, so the block's
+      // first plain read (the facts) took the transaction's snapshot after the lots were ours, and the on-hand it
+      // sums includes every issue of these lots that committed before (the location was read with a shared lock,
+      // which takes no snapshot). With no store named, the lots (locked) and the store codes come here, and the
+      // facts after them, below.
       const sets = location
         ? openedSets.slice(1)
         : await queryBlock(
