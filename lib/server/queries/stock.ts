@@ -617,20 +617,17 @@ const LOT_ONLY_COLUMNS =
  * The picking path's locking read: the lots of a grease and pack with containers on hand, at one location or
  * anywhere on the sites, in the order they are to be used. The lots alone are locked: joined to storage_location,
  * InnoDB locked the location's row too, so every issue from one store waited for the one before it, whatever the
- * grease. Site and location are values, or the user variables of `locationIntoVariables`.
+ * grease. `ISSUE_SITE` means the store `locationIntoVariables` kept (its site and its location); sites given as values
+ * mean anywhere on them.
  */
-function lotsForUpdate(
-  sites: number[] | typeof ISSUE_SITE,
-  location: typeof ISSUE_LOCATION | null,
-  greaseId: number,
-  packId: number,
-): BatchStatement {
-  const variables = sites === ISSUE_SITE;
+function lotsForUpdate(sites: number[] | typeof ISSUE_SITE, greaseId: number, packId: number): BatchStatement {
+  const where =
+    sites === ISSUE_SITE ? `l.site_id = ${ISSUE_SITE} AND l.location_id = ${ISSUE_LOCATION}` : "l.site_id IN (?)";
   return {
     sql: `SELECT ${LOT_ONLY_COLUMNS} FROM stock_lot l
-         WHERE ${variables ? `l.site_id = ${ISSUE_SITE}` : "l.site_id IN (?)"} AND l.grease_id = ? AND l.pack_id = ? ${location ? `AND l.location_id = ${location}` : ""} AND l.on_hand > 0
+         WHERE ${where} AND l.grease_id = ? AND l.pack_id = ? AND l.on_hand > 0
          ORDER BY l.expires_on IS NULL, l.expires_on, l.received_on, l.id FOR UPDATE`,
-    params: [...(variables ? [] : [sites]), greaseId, packId],
+    params: [...(sites === ISSUE_SITE ? [] : [sites]), greaseId, packId],
   };
 }
 
@@ -766,7 +763,7 @@ export async function issueStock(
         ...(picksAtLocation
           ? [
               ...locationIntoVariables(ownSites, input.location),
-              lotsForUpdate(ISSUE_SITE, ISSUE_LOCATION, input.greaseId, input.packId),
+              lotsForUpdate(ISSUE_SITE, input.greaseId, input.packId),
               ...lowStockStatements(ISSUE_SITE, input.greaseId, input.packId),
             ]
           : []),
@@ -856,7 +853,7 @@ export async function issueStock(
         ? openedSets.slice(1)
         : await queryBlock(
             [
-              lotsForUpdate(sites, null, input.greaseId, input.packId),
+              lotsForUpdate(sites, input.greaseId, input.packId),
               { sql: "SELECT id, code FROM storage_location WHERE site_id IN (?)", params: [sites] },
             ],
             transaction,
