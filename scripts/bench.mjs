@@ -12,6 +12,7 @@ import os from "node:os";
 import path from "node:path";
 import { gzipSync } from "node:zlib";
 import { load as loadOnly, median, sampleRss, serial, treeCpuMs, treeRssKb } from "./lib/bench-stats.mjs";
+import { send } from "./lib/http-client.mjs";
 import { ensureDebianPackage, ensureNodeModules, root } from "./lib/setup.mjs";
 import { freePort, say, startChild, stopChild, waitForHttp } from "./lib/util.mjs";
 
@@ -149,9 +150,8 @@ async function main() {
     await waitForHttp(`http://127.0.0.1:${floorPort}/point`, { timeoutMs: 15_000 });
     const dbFloor = async (_i, lap) => {
       for (const name of ["point", "evaluate"]) {
-        const r = await fetch(`http://127.0.0.1:${floorPort}/${name}`);
-        await r.arrayBuffer();
-        if (!r.ok) throw new Error(`db floor ${name} ${r.status}`);
+        const r = await send(`http://127.0.0.1:${floorPort}/${name}`);
+        if (r.status !== 200) throw new Error(`db floor ${name} ${r.status}`);
         lap();
       }
     };

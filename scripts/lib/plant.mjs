@@ -2,6 +2,7 @@
 // process serving it; plus an HTTP client signed in as one of the scale users.
 import path from "node:path";
 import mariadb from "mariadb";
+import { send } from "./http-client.mjs";
 import { dbScript } from "./setup.mjs";
 import { newSecret, startApp, startDatabase } from "./stack.mjs";
 import { freePort, say } from "./util.mjs";
@@ -58,25 +59,21 @@ export async function plant({ tmp, name, fraction, stoppers, passwordHash, appEn
   return { base: `http://127.0.0.1:${appPort}`, env, rootConn, pid: app.child.pid, dbPid: db.child?.pid };
 }
 
-/** An HTTP client signed in as one of the scale users (`scale-<who>@example.test`). */
+/** An HTTP client signed in as one of the scale users (`scale-<who>@example.test`), on `send` (./http-client.mjs). */
 export async function client(base, who, password) {
   const origin = base;
   const signIn = async (email = `scale-${who}@example.test`) => {
-    const r = await fetch(`${base}/api/v1/session`, {
+    const r = await send(`${base}/api/v1/session`, {
       method: "POST",
       headers: { origin, "content-type": "application/json" },
       body: JSON.stringify({ email, password }),
     });
     if (r.status !== 200) throw new Error(`sign-in answered ${r.status}`);
-    await r.arrayBuffer();
-    return r.headers
-      .getSetCookie()
-      .map((c) => c.split(";")[0])
-      .join("; ");
+    return r.setCookies.map((c) => c.split(";")[0]).join("; ");
   };
   const cookie = await signIn();
   const request = async (p, { method = "GET", body, headers = {}, expect = [200] } = {}) => {
-    const r = await fetch(`${base}${p}`, {
+    const r = await send(`${base}${p}`, {
       method,
       headers: {
         cookie,
@@ -86,11 +83,10 @@ export async function client(base, who, password) {
       },
       body: body ? JSON.stringify(body) : undefined,
     });
-    const text = await r.text();
     if (!expect.includes(r.status))
-      throw new Error(`${method} ${p} answered ${r.status}: ${text.slice(0, 200)}`);
-    if (!text) return null;
-    return /json/.test(r.headers.get("content-type") ?? "") ? JSON.parse(text) : text;
+      throw new Error(`${method} ${p} answered ${r.status}: ${r.text.slice(0, 200)}`);
+    if (!r.text) return null;
+    return /json/.test(r.headers["content-type"] ?? "") ? JSON.parse(r.text) : r.text;
   };
   return { signIn, request, cookie };
 }
