@@ -250,6 +250,23 @@ async function sweep(from: Site, to: Site) {
   for (const a of o.areas) {
     action("asset in the area", "app/(app)/points/plant-actions.ts#createAssetAction", [prev, form({ areaId: a.id, tag: "SWEEP-1", name: "Sweep asset", kind: "motor" })], ["areaId"]);
   }
+  // An area of the other site answers exactly as an area that does not exist: nothing tells which ids exist there.
+  const foreignArea = o.areas[0];
+  if (foreignArea)
+    jobs.push(async () => {
+      const target = actions.find((x) => x.key === "app/(app)/points/plant-actions.ts#createAssetAction");
+      if (!target) throw new Error("no createAssetAction in the build");
+      const ask = async (areaId: number) =>
+        (await callAction(client, target, [prev, form({ areaId, tag: "SWEEP-2", name: "Sweep asset", kind: "motor" })])).result as
+          | { status?: string; message?: string; fieldErrors?: Record<string, unknown> }
+          | undefined;
+      const foreign = await ask(Number(foreignArea.id));
+      const unknown = await ask(2_000_000_000);
+      // The form's values are echoed back (the ids differ); the rest must not.
+      const verdict = (a: typeof foreign) => JSON.stringify([a?.status, a?.message, a?.fieldErrors]);
+      const ok = foreign?.fieldErrors?.areaId !== undefined && verdict(foreign) === verdict(unknown);
+      answers.push({ what: "createAssetAction", status: 200, text: JSON.stringify({ foreign, unknown }), ok, why: "an area of the other site answers as an unknown area" });
+    });
   for (const a of spread(o.assets)) {
     action("new point on the asset", "app/(app)/points/plant-actions.ts#savePointAction", [null, prev, pointForm(a.id, own.grease_id)], ["assetId"]);
   }

@@ -60,13 +60,18 @@ export async function createArea(
   }
 }
 
-async function areaSite(areaId: number, transaction?: Transaction): Promise<number> {
+/**
+ * The site of an area the user may add to. An area of another site answers exactly as an unknown one does, so the
+ * answer does not tell which area ids exist elsewhere.
+ */
+async function areaSiteOf(userId: string, areaId: number, transaction?: Transaction): Promise<number> {
   const [row] = await getSequelize().query<{ site_id: number }>("SELECT site_id FROM area WHERE id = ?", {
     replacements: [areaId],
     type: QueryTypes.SELECT,
     transaction,
   });
-  if (!row) throw new ValidationError({ areaId: ["No such area."] });
+  if (!row || !(await userSiteIds(userId, transaction)).includes(Number(row.site_id)))
+    throw new ValidationError({ areaId: ["No such area on your sites."] });
   return Number(row.site_id);
 }
 
@@ -75,8 +80,7 @@ export async function createAsset(
   userId: string,
   transaction?: Transaction,
 ): Promise<number> {
-  const siteId = await areaSite(input.areaId, transaction);
-  await assertSite(userId, siteId, transaction);
+  const siteId = await areaSiteOf(userId, input.areaId, transaction);
   const now = new Date();
   try {
     const insert = async (t: Transaction) => {
