@@ -10,8 +10,8 @@ import { gunzipSync } from "node:zlib";
 const agent = new http.Agent({ keepAlive: true, maxSockets: Infinity });
 
 /**
- * Sends one request and reads the whole answer: `{ status, headers, text, setCookies }`. Asks for gzip unless the
- * caller's headers say otherwise (a phone's browser does) and unpacks it. A kept-alive socket the server closed
+ * Sends one request and reads the whole answer: `{ status, headers, text, setCookies }`. Asks for gzip, as a phone's
+ * browser does, unless the caller's headers say otherwise, and unpacks it. A kept-alive socket the server closed
  * while idle is retried once on a fresh one, as Node's documentation advises (`request.reusedSocket`).
  */
 export function send(url, { method = "GET", headers = {}, body } = {}) {
