@@ -1,6 +1,6 @@
 import "server-only";
-import { QueryTypes, Transaction } from "sequelize";
-import { getSequelize } from "./db";
+import { Transaction, type Sequelize } from "sequelize";
+import { getSequelize, statementCounter } from "./db";
 
 /**
  * Several statements sent to MariaDB as ONE compound statement (`BEGIN NOT ATOMIC … END`), so a request pays one
@@ -10,7 +10,13 @@ import { getSequelize } from "./db";
  *
  * The statements run in order and the first failure stops the rest; a statement may require that it changed
  * exactly `expectChanged` rows, otherwise the block stops with `BatchCheckFailed` naming it. Values go in as `?`
- * placeholders and are escaped by the ORM, as in any other query; the SQL text itself must be fixed by the caller.
+ * placeholders and are escaped by the driver (an array becomes a list, as in `IN (?)`); the SQL text itself must be
+ * fixed by the caller.
+ *
+ * The block goes straight to the driver, on the ORM's connection (the transaction's, or one from the ORM's pool),
+ * not through `sequelize.query`: for a statement whose rows are used as the driver gives them, the ORM's layer
+ * (the replacements parsed out of the SQL and escaped, dates formatted, a stack trace taken, the result wrapped)
+ * cost the app's one thread more than the driver did. The connection, its settings and the errors are the ORM's own.
  */
 export interface BatchStatement {
   sql: string;
@@ -66,14 +72,45 @@ const checkIndex = (error: unknown): number | null => {
   return found ? Number(found[1]) : -1;
 };
 
+type DriverConnection = { query(sql: string, values?: unknown[]): Promise<unknown> };
+type ConnectionManager = {
+  getConnection(options: object): Promise<DriverConnection>;
+  releaseConnection(connection: DriverConnection): void | Promise<void>;
+};
+type DialectQuery = new (connection: DriverConnection, sequelize: Sequelize, options: object) => {
+  formatError(error: unknown): Error;
+};
+
+/**
+ * One statement on the driver: in the transaction's connection, or on a connection of the ORM's pool given back
+ * afterwards. Counted like the ORM's statements (`statementCounter`); a failure becomes the error the ORM would raise
+ * for it (UniqueConstraintError, DatabaseError…, with the driver's error as `original`).
+ */
+async function onDriver(sql: string, params: unknown[], transaction?: Transaction): Promise<unknown> {
+  const sequelize = getSequelize();
+  const manager = sequelize.connectionManager as unknown as ConnectionManager;
+  const state = transaction as unknown as { finished?: string; connection?: DriverConnection } | undefined;
+  if (state?.finished) throw new Error(`The transaction has already ended (${state.finished}); it cannot be used.`);
+  const connection = state ? state.connection : await manager.getConnection({});
+  if (!connection) throw new Error("The transaction has no connection.");
+  statementCounter.count += 1;
+  try {
+    return await connection.query(sql, params);
+  } catch (error) {
+    const Query = (sequelize as unknown as { dialect: { Query: DialectQuery } }).dialect.Query;
+    throw new Query(connection, sequelize, {}).formatError(error);
+  } finally {
+    if (!state) await manager.releaseConnection(connection);
+  }
+}
+
 /** Sends the statements; answers the driver's result: one statement's own, or a block's list of result sets. */
 async function send(statements: BatchStatement[], mode: BlockMode, transaction?: Transaction): Promise<{ single: boolean; data: unknown }> {
   // One plain statement needs no block around it.
   const single = mode === "inside" && statements.length === 1 && statements[0]!.expectChanged === undefined;
   const { sql, params } = single ? statements[0]! : compoundStatement(statements, mode);
   try {
-    const [data] = await getSequelize().query(sql, { replacements: params, type: QueryTypes.RAW, transaction });
-    return { single, data };
+    return { single, data: await onDriver(sql, params, transaction) };
   } catch (error) {
     const index = checkIndex(error);
     if (index !== null) throw new BatchCheckFailed(index);

@@ -131,6 +131,37 @@ describe("statements sent as one compound statement (lib/server/batch.ts)", () =
     expect(await values()).toEqual([3, 2]);
   });
 
+  it("on the driver, values, lists, times and errors come out as they did through the ORM", async () => {
+    const sequelize = db.getSequelize();
+    const conn = await rootConnection(DB);
+    await conn.query("CREATE TABLE IF NOT EXISTS batch_time (id INT PRIMARY KEY, at DATETIME(3) NOT NULL)");
+    await conn.end();
+    // A time goes in as UTC (the connection's zone), to the millisecond, as the ORM wrote it.
+    const at = new Date("2026-03-29T01:30:15.250Z");
+    await batch.batchAtomically([{ sql: "INSERT INTO batch_time VALUES (?, ?)", params: [1, at] }]);
+    const [viaOrm] = await sequelize.query<{ at: string }>("SELECT DATE_FORMAT(at, '%Y-%m-%d %H:%i:%s.%f') AS at FROM batch_time WHERE id = 1", {
+      type: "SELECT" as never,
+    });
+    expect(viaOrm!.at).toBe("2026-03-29 01:30:15.250000");
+    // An array is a list (`IN (?)`), and the rows come back as the ORM's connection types them.
+    const [rows] = await batch.queryBlock([{ sql: "SELECT id, n FROM batch_probe WHERE id IN (?) ORDER BY id", params: [[1, 2]] }]);
+    expect([...rows!]).toEqual([
+      { id: 1, n: 3 },
+      { id: 2, n: 2 },
+    ]);
+    // A duplicate key is the ORM's own error class, with the driver's error number underneath.
+    const duplicate = (await batch
+      .batchAtomically([{ sql: "INSERT INTO batch_time VALUES (?, ?)", params: [1, at] }])
+      .then(() => ({}), (e: unknown) => e)) as { name?: string; original?: { errno?: number } };
+    expect(duplicate.name).toBe("SequelizeUniqueConstraintError");
+    expect(duplicate.original?.errno).toBe(1062);
+    // A transaction that has ended cannot be written through any more (its connection is back in the pool).
+    const ended = await sequelize.transaction();
+    await ended.commit();
+    await expect(batch.batchInTransaction([take(1, 1)], ended)).rejects.toThrow(/ended/);
+    expect(await values()).toEqual([3, 2]);
+  });
+
   it("a statement may not bring its own semicolon, and an empty batch is refused", () => {
     expect(() => batch.compoundStatement([{ sql: "SELECT 1;", params: [] }], "inside")).toThrow(/semicolon/);
     expect(() => batch.compoundStatement([], "own")).toThrow(/empty/);
