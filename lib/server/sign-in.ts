@@ -1,7 +1,6 @@
 import "server-only";
-import { QueryTypes } from "sequelize";
 import { auditAppendStatement, recordAudit } from "./audit";
-import { batchAtomically } from "./batch";
+import { batchAtomically, queryBlock } from "./batch";
 import { getSequelize } from "./db";
 import { log } from "./log";
 import { hashPassword, needsRehash, verifyDummy, verifyPassword } from "./passwords";
@@ -33,13 +32,11 @@ export async function signIn(input: {
   const keys = signInThrottleKeys(email, input.address);
 
   // The throttle and the account are read side by side; nothing is checked against the account while locked.
-  const [decision, [user]] = await Promise.all([
+  const [decision, [users]] = await Promise.all([
     checkThrottle(keys, now),
-    getSequelize().query<UserRow>(
-      "SELECT id, email, name, role, status, password_hash FROM app_user WHERE email = ? LIMIT 1",
-      { replacements: [email], type: QueryTypes.SELECT },
-    ),
+    queryBlock([{ sql: "SELECT id, email, name, role, status, password_hash FROM app_user WHERE email = ? LIMIT 1", params: [email] }]),
   ]);
+  const user = (users as UserRow[] | undefined)?.[0];
   if (!decision.allowed) {
     await recordThrottleFailure(keys, now);
     log("warn", "sign_in_throttled", { email, address: input.address, retryAfter: decision.retryAfterSeconds });
