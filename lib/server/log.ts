@@ -6,9 +6,9 @@ type Level = "info" | "warn" | "error";
  * Lines of this turn of the event loop, written together when it ends. Standard output is usually a pipe, and
  * writing to a pipe is synchronous in Node on Linux: one write per line cost a busy server's one thread a system call
  * and the console's wrappers for every request it logged. An error line goes out at once (after what is waiting), and
- * whatever waits is written when the process exits.
+ * whatever waits is written when the process exits. One buffer per process, even when a production build holds
+ * several copies of this module (one per route bundle).
  */
-// One buffer per process, even when a production build holds several copies of this module (one per route bundle).
 const holder = globalThis as { __greaseledgerLogBuffer?: { lines: string[]; scheduled: boolean } };
 const created = !holder.__greaseledgerLogBuffer;
 const buffer = (holder.__greaseledgerLogBuffer ??= { lines: [], scheduled: false });
