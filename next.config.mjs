@@ -1,3 +1,5 @@
+import securityHeaders from "./lib/security-headers.json" with { type: "json" };
+
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize and the database drivers load dialects dynamically; bundling them breaks the build.
@@ -9,7 +11,8 @@ const nextConfig = {
   experimental: { serverActions: { bodySizeLimit: "11mb" }, proxyClientMaxBodySize: "11mb" },
   reactStrictMode: true,
   // A fixed build id keeps two instances built from the same commit interchangeable behind a balancer.
-  // Static files get the same baseline headers as pages (the proxy adds the CSP to everything else).
+  // Every answer, static files included, gets the baseline headers. Pages get their CSP, with a nonce, from the
+  // proxy; the API does not pass through the proxy (see proxy.ts) and gets a fixed policy that allows nothing.
   async headers() {
     return [
       {
@@ -19,6 +22,18 @@ const nextConfig = {
           { key: "Referrer-Policy", value: "same-origin" },
           { key: "X-Frame-Options", value: "DENY" },
         ],
+      },
+      {
+        source: "/api/:path*",
+        headers: [
+          { key: "Content-Security-Policy", value: securityHeaders.noContentPolicy },
+          { key: "Permissions-Policy", value: securityHeaders.permissionsPolicy },
+        ],
+      },
+      {
+        source: "/api/:path*",
+        has: [{ type: "header", key: "x-forwarded-proto", value: ".*https.*" }],
+        headers: [{ key: "Strict-Transport-Security", value: securityHeaders.strictTransportSecurity }],
       },
     ];
   },

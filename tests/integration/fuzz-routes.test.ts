@@ -895,6 +895,20 @@ describe("findings of the fuzz, kept as plain cases", () => {
     },
   );
 
+  // The API skips the proxy except where its address holds a percent-escape; a write with a body is refused too.
+  it.each([
+    ["PATCH", "/api/v1/greases/%FF"],
+    ["POST", "/api/v1/points/%C0%AF/services"],
+  ])("%s %s with a JSON body → 400 naming the path, not 500", async (method, pathname) => {
+    const response = await clients.get("lead")!.request(method, pathname, {
+      body: "{}",
+      headers: { "content-type": "application/json" },
+    });
+    expect(response.status).toBe(400);
+    expect(response.body.error).toMatchObject({ code: "malformed_path", fields: { path: [expect.any(String)] } });
+    expect(response.headers.get("content-security-policy")).toContain("default-src 'none'");
+  });
+
   it("a page address that does not decode → 400 with the security headers", async () => {
     const response = await fetch(`${app.url}/points/%FF`, { redirect: "manual" });
     expect(response.status).toBe(400);

@@ -204,4 +204,37 @@ describe("security headers", () => {
     expect(response.headers.get("x-content-type-options")).toBe("nosniff");
     expect(response.headers.get("referrer-policy")).toBe("same-origin");
   });
+
+  // The API skips the proxy: its headers are the fixed ones from next.config.mjs, on reads and on writes alike.
+  it.each([
+    ["GET", "/api/v1/health", undefined],
+    ["POST", "/api/v1/session", JSON.stringify({ email: "nobody@example.test", password: "x" })],
+  ])("the API's %s %s allows no content and carries no nonce", async (method, pathname, body) => {
+    const url = new URL(pathname, process.env.APP_URL);
+    const response = await fetch(url, {
+      method,
+      body,
+      headers: body ? { "content-type": "application/json", origin: url.origin } : {},
+    });
+    expect(response.status).toBe(method === "GET" ? 200 : 401);
+    expect(response.headers.get("content-security-policy")).toBe(
+      "default-src 'none'; frame-ancestors 'none'; object-src 'none'; base-uri 'none'",
+    );
+    expect(response.headers.get("permissions-policy")).toBe("camera=(self), microphone=(), geolocation=()");
+    expect(response.headers.get("x-frame-options")).toBe("DENY");
+    expect(response.headers.get("x-content-type-options")).toBe("nosniff");
+  });
+
+  it("a page keeps its nonce policy", async () => {
+    const response = await fetch(new URL("/sign-in", process.env.APP_URL), { redirect: "manual" });
+    expect(response.headers.get("content-security-policy")).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+'/);
+  });
+
+  it.each(["/sign-in", "/api/v1/health"])("%s behind HTTPS (X-Forwarded-Proto) asks for HSTS", async (pathname) => {
+    const url = new URL(pathname, process.env.APP_URL);
+    const plain = await fetch(url, { redirect: "manual" });
+    const secure = await fetch(url, { redirect: "manual", headers: { "x-forwarded-proto": "https" } });
+    expect(plain.headers.get("strict-transport-security")).toBeNull();
+    expect(secure.headers.get("strict-transport-security")).toBe("max-age=31536000; includeSubDomains");
+  });
 });
