@@ -10,9 +10,9 @@ const nextConfig = {
   // file near the limit into an unreadable form: it gets the same room, and the upload code counts the 10 MB itself.
   experimental: { serverActions: { bodySizeLimit: "11mb" }, proxyClientMaxBodySize: "11mb" },
   reactStrictMode: true,
-  // A fixed build id keeps two instances built from the same commit interchangeable behind a balancer.
   // Every answer, static files included, gets the baseline headers. Pages get their CSP, with a nonce, from the
-  // proxy; the API does not pass through the proxy (see proxy.ts) and gets a fixed policy that allows nothing.
+  // proxy; the API does not pass through the proxy (see proxy.ts) and gets a fixed policy under which nothing loads
+  // or runs (inline style only, which the browser's own viewers of an image or JSON use).
   async headers() {
     return [
       {
@@ -26,7 +26,7 @@ const nextConfig = {
       {
         source: "/api/:path*",
         headers: [
-          { key: "Content-Security-Policy", value: securityHeaders.noContentPolicy },
+          { key: "Content-Security-Policy", value: securityHeaders.nonPagePolicy },
           { key: "Permissions-Policy", value: securityHeaders.permissionsPolicy },
         ],
       },
@@ -37,6 +37,7 @@ const nextConfig = {
       },
     ];
   },
+  // A fixed build id keeps two instances built from the same commit interchangeable behind a balancer.
   generateBuildId: async () => process.env.GREASELEDGER_BUILD_ID ?? "greaseledger",
 };
 

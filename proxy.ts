@@ -11,7 +11,7 @@ import securityHeaders from "@/lib/security-headers.json";
  */
 export function proxy(request: NextRequest) {
   const malformed = malformedPathResponse(request);
-  if (malformed) return withSecurityHeaders(malformed, request, securityHeaders.noContentPolicy);
+  if (malformed) return withSecurityHeaders(malformed, request, securityHeaders.nonPagePolicy);
   // An API address with a percent-escape that decodes: nothing to add.
   if (request.nextUrl.pathname.startsWith("/api/")) return NextResponse.next();
   const nonce = btoa(crypto.randomUUID());

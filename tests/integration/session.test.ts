@@ -209,7 +209,7 @@ describe("security headers", () => {
   it.each([
     ["GET", "/api/v1/health", undefined],
     ["POST", "/api/v1/session", JSON.stringify({ email: "nobody@example.test", password: "x" })],
-  ])("the API's %s %s allows no content and carries no nonce", async (method, pathname, body) => {
+  ])("the API's %s %s lets nothing load or run and carries no nonce", async (method, pathname, body) => {
     const url = new URL(pathname, process.env.APP_URL);
     const response = await fetch(url, {
       method,
@@ -217,8 +217,9 @@ describe("security headers", () => {
       headers: body ? { "content-type": "application/json", origin: url.origin } : {},
     });
     expect(response.status).toBe(method === "GET" ? 200 : 401);
+    // Nothing may load or run; inline style only, which the browser's own viewers of an image or JSON use.
     expect(response.headers.get("content-security-policy")).toBe(
-      "default-src 'none'; frame-ancestors 'none'; object-src 'none'; base-uri 'none'",
+      "default-src 'none'; style-src 'unsafe-inline'; frame-ancestors 'none'; object-src 'none'; base-uri 'none'",
     );
     expect(response.headers.get("permissions-policy")).toBe("camera=(self), microphone=(), geolocation=()");
     expect(response.headers.get("x-frame-options")).toBe("DENY");
