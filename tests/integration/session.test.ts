@@ -239,3 +239,18 @@ describe("security headers", () => {
     expect(secure.headers.get("strict-transport-security")).toBe("max-age=31536000; includeSubDomains");
   });
 });
+
+describe("the mark", () => {
+  it("the sign-in page links our SVG icon, and /favicon.ico is there for what asks for it by name", async () => {
+    const html = await (await fetch(new URL("/sign-in", process.env.APP_URL))).text();
+    const href = /<link rel="icon" href="([^"]+)"[^>]*type="image\/svg\+xml"/.exec(html)?.[1];
+    expect(href).toMatch(/^\/icon\.svg/);
+    const icon = await fetch(new URL(href!, process.env.APP_URL));
+    expect(icon.headers.get("content-type")).toBe("image/svg+xml");
+    expect(await icon.text()).toContain("<svg");
+    const ico = await fetch(new URL("/favicon.ico", process.env.APP_URL));
+    expect(ico.status).toBe(200);
+    // An ICO file starts with reserved 0, type 1 (icon).
+    expect([...new Uint8Array(await ico.arrayBuffer()).slice(0, 4)]).toEqual([0, 0, 1, 0]);
+  });
+});
